@@ -1,0 +1,92 @@
+/**
+ * Schema validation of a parsed YAML source: every zod issue becomes a positioned {@link Problem};
+ * problems at paths set by `--set` are reported against `--set` and the item instead.
+ */
+import type { z } from 'zod';
+import { draftsOf, type Draft } from './issues.js';
+import { sortProblems, type Problem } from './problems.js';
+import { dottedPath, locatePath, positionOf, type YamlSource } from './yaml-source.js';
+
+export { closestKey } from './closest-key.js';
+export { validKeysAt } from './schema-walk.js';
+
+export type ValidateResult<T> = { ok: true; value: T } | { ok: false; problems: Problem[] };
+
+function startsWith(path: readonly (string | number)[], prefix: readonly string[], upTo = prefix.length): boolean {
+  if (path.length < upTo || prefix.length < upTo) return false;
+  for (let i = 0; i < upTo; i++) if (String(path[i]) !== prefix[i]) return false;
+  return true;
+}
+
+/**
+ * The `--set` item responsible for a problem at `path`: one that set the path or an ancestor, or
+ * one that created the (position-less) map the path runs into. Longest match, later item on ties.
+ */
+function overrideFor(source: YamlSource, path: readonly (string | number)[], overridden: ReadonlyMap<string, string>): string | undefined {
+  if (overridden.size === 0) return undefined;
+  const located = locatePath(source, path);
+  let best: string | undefined;
+  let bestLength = -1;
+  for (const [key, item] of overridden) {
+    const segs = key.split('.');
+    const covers = startsWith(path, segs);
+    const created = located.created && startsWith(path, segs, located.depth + 1);
+    const length = covers ? segs.length : created ? located.depth + 1 : -1;
+    if (length >= 0 && length >= bestLength) {
+      best = item;
+      bestLength = length;
+    }
+  }
+  return best;
+}
+
+function place(d: Draft, source: YamlSource, overridden: ReadonlyMap<string, string>): Problem {
+  const { preferKey, path, ...fields } = d;
+  const item = overrideFor(source, path, overridden);
+  if (item !== undefined) {
+    return { ...fields, file: '--set', line: null, column: null, path: dottedPath(path), found: item };
+  }
+  const pos = positionOf(source, path, preferKey === true);
+  return { ...fields, file: source.file, line: pos?.line ?? null, column: pos?.column ?? null, path: dottedPath(path) };
+}
+
+/** `--set` problems (sorted last, no line) in the order the items were given. */
+function bySetOrder(problems: Problem[], overridden: ReadonlyMap<string, string>): Problem[] {
+  const order = new Map([...overridden.values()].map((item, i) => [item, i]));
+  const rank = (p: Problem) => (p.file === '--set' ? (order.get(p.found ?? '') ?? order.size) : -1);
+  return problems.map((p, i) => ({ p, i })).sort((a, b) => rank(a.p) - rank(b.p) || a.i - b.i).map((x) => x.p);
+}
+
+function dedupe(problems: readonly Problem[]): Problem[] {
+  const seen = new Set<string>();
+  return problems.filter((p) => {
+    const key = `${p.code}\u0000${p.path}\u0000${p.message}`;
+    if (seen.has(key)) return false;
+    seen.add(key);
+    return true;
+  });
+}
+
+/**
+ * Validates `source.doc.toJS()` against `schema`. Returns the parsed (defaulted) value, or every
+ * problem with file, line, column, dotted path, found/expected and suggestions, sorted by position
+ * (`--set` problems last). Never throws for bad input.
+ */
+export function validateSource<S extends z.ZodType>(
+  source: YamlSource,
+  schema: S,
+  overridden: ReadonlyMap<string, string> = new Map(),
+): ValidateResult<z.output<S>> {
+  let data: unknown;
+  try {
+    data = source.doc.toJS({ maxAliasCount: 1000 });
+  } catch (err) {
+    const message = `the document cannot be expanded: ${(err as Error).message}`;
+    return { ok: false, problems: [{ code: 'syntax', file: source.file, line: 1, column: 1, path: '', message }] };
+  }
+  const result = schema.safeParse(data, { reportInput: true });
+  if (result.success) return { ok: true, value: result.data };
+  const ctx = { schema, data };
+  const problems = result.error.issues.flatMap((issue) => draftsOf(issue, [], ctx)).map((d) => place(d, source, overridden));
+  return { ok: false, problems: bySetOrder(sortProblems(dedupe(problems)), overridden) };
+}
