@@ -1,0 +1,284 @@
+/**
+ * The 4-step contention procedure (LTE random access, 3GPP TS 36.321 clause 5.1) as evaluated in
+ * 3GPP TR 37.868: occasions, uniform preamble choice, detection with power ramping, response window
+ * with a per-subframe answer limit, Msg3/Msg4 with HARQ, the contention-resolution timer, uniform
+ * backoff and the preamble transmission limit, with optional access class barring.
+ *
+ * Cost model: devices waiting for an occasion sit in a per-occasion bucket (a linked list through a
+ * typed array), so an occasion is one kernel event however many devices use it; a device's whole
+ * attempt (response, Msg3, Msg4) is resolved at the occasion from its own draws and ends in one
+ * kernel event at the time its fate is known. Modelling choices are marked (modelling choice).
+ */
+import type { Simulator } from '../../kernel/index.js';
+import type { Stream, StreamSet } from '../../random/index.js';
+import type { Ledger } from '../../metrics/ledger.js';
+import { Barring } from './barring.js';
+import type { RandomAccessParams } from './params.js';
+
+/** What the procedure needs from the cell around it. */
+export interface ContentionHost {
+  readonly sim: Simulator;
+  readonly ledger: Ledger;
+  /** Device → group index. */
+  readonly groupOf: Uint16Array;
+  /** Arrival time (ms) of the packet each device is currently trying to send. */
+  readonly holArrival: Float64Array;
+  /** The access completed at `t` (Msg4 received). */
+  delivered(device: number, t: number, preambleTx: number, firstPreamble: number): void;
+  /** The access was dropped at `t` (preamble transmission limit reached). */
+  dropped(device: number, t: number): void;
+}
+
+const NONE = -1;
+const SUCCESS = 1;
+const FAILURE = 2;
+
+export class ContentionProcedure {
+  private readonly host: ContentionHost;
+  private readonly sim: Simulator;
+  private readonly ledger: Ledger;
+  private readonly p: RandomAccessParams;
+
+  // Per device.
+  private readonly attempt: Uint8Array;
+  private readonly outcome: Uint8Array;
+  private readonly nextInBucket: Int32Array;
+  private readonly nextOnPreamble: Int32Array;
+  private readonly firstPreamble: Float64Array;
+
+  // Per occasion: a ring of bucket heads indexed by occasion number.
+  private readonly bucketHead: Int32Array;
+  private readonly ringMask: number;
+  private lastResolved = -1;
+
+  // Per preamble (scratch for one occasion).
+  private readonly preambleHead: Int32Array;
+  private readonly preambleCount: Int32Array;
+
+  private readonly preambleStream: Stream;
+  private readonly detectionStream: Stream;
+  private readonly harqStream: Stream;
+  private readonly backoffStream: Stream;
+  private readonly barring: Barring | null;
+
+  private readonly occasionKind: number;
+  private readonly attemptEndKind: number;
+  private readonly wakeKind: number;
+
+  /** P(detected) for a lone preamble at attempt k (index k), 1 − e^(−k) or 1. */
+  private readonly detectProbability: Float64Array;
+  private readonly answersPerOccasion: number;
+  private readonly answersPerSubframe: number;
+
+  constructor(params: RandomAccessParams, host: ContentionHost, streams: StreamSet, deviceCount: number) {
+    this.p = params;
+    this.host = host;
+    this.sim = host.sim;
+    this.ledger = host.ledger;
+    this.attempt = new Uint8Array(deviceCount);
+    this.outcome = new Uint8Array(deviceCount);
+    this.nextInBucket = new Int32Array(deviceCount);
+    this.nextOnPreamble = new Int32Array(deviceCount);
+    this.firstPreamble = new Float64Array(deviceCount);
+
+    // Bucket lookahead: a failed attempt joins the occasion after its backoff, a new one the next occasion.
+    const lookahead = Math.ceil(params.backoff_indicator / params.occasion_period) + 3;
+    let ring = 8;
+    while (ring < lookahead) ring *= 2;
+    this.bucketHead = new Int32Array(ring).fill(NONE);
+    this.ringMask = ring - 1;
+
+    this.preambleHead = new Int32Array(params.preambles).fill(NONE);
+    this.preambleCount = new Int32Array(params.preambles);
+
+    this.preambleStream = streams.stream('contention/preamble');
+    this.detectionStream = streams.stream('contention/detection');
+    this.harqStream = streams.stream('contention/harq');
+    this.backoffStream = streams.stream('contention/backoff');
+    this.barring = params.barring === undefined ? null : new Barring(params.barring, streams.stream('contention/barring'));
+
+    this.detectProbability = new Float64Array(params.preamble_trans_max + 1);
+    for (let k = 1; k <= params.preamble_trans_max; k++) {
+      this.detectProbability[k] = params.detection === 'perfect' ? 1 : 1 - Math.exp(-k);
+    }
+    this.answersPerSubframe = params.answers_per_subframe === 'unlimited' ? Infinity : params.answers_per_subframe;
+    this.answersPerOccasion = this.answersPerSubframe * params.response_window;
+
+    this.occasionKind = this.sim.defineEvent('contention/occasion', (index, t) => this.resolveOccasion(index, t));
+    this.attemptEndKind = this.sim.defineEvent('contention/attempt-end', (device, t) => this.attemptEnded(device, t));
+    this.wakeKind = this.sim.defineEvent('contention/wake', (device, t) => this.join(device, t));
+  }
+
+  /** Device `device` starts contending for its head-of-line packet now. */
+  begin(device: number): void {
+    const now = this.sim.now;
+    this.attempt[device] = 1;
+    this.firstPreamble[device] = Number.NaN;
+    let ready = now;
+    if (this.barring !== null) {
+      ready = this.barring.passTime(now);
+      this.ledger.barringPass(this.host.groupOf[device] as number, this.host.holArrival[device] as number, ready - now);
+    }
+    this.scheduleJoin(device, ready);
+  }
+
+  /** Time (ms) of occasion number `index`. */
+  occasionTime(index: number): number {
+    return this.p.occasion_offset + index * this.p.occasion_period;
+  }
+
+  /** Puts the device in the bucket of the first occasion at or after `t`, now or via a wake-up event. */
+  private scheduleJoin(device: number, t: number): void {
+    const index = this.firstOccasionAtOrAfter(t);
+    if (index - Math.max(this.lastResolved, 0) < this.ringMask) this.enqueue(device, index);
+    else this.sim.at(t, this.wakeKind, device);
+  }
+
+  private join(device: number, t: number): void {
+    this.enqueue(device, this.firstOccasionAtOrAfter(t));
+  }
+
+  private firstOccasionAtOrAfter(t: number): number {
+    let index = Math.ceil((t - this.p.occasion_offset) / this.p.occasion_period);
+    if (index < 0) index = 0;
+    if (index <= this.lastResolved) index = this.lastResolved + 1;
+    return index;
+  }
+
+  private enqueue(device: number, index: number): void {
+    const slot = index & this.ringMask;
+    const head = this.bucketHead[slot] as number;
+    if (head === NONE) this.sim.at(this.occasionTime(index), this.occasionKind, index);
+    this.nextInBucket[device] = head;
+    this.bucketHead[slot] = device;
+  }
+
+  /** All devices of the occasion's bucket send their preambles; resolve every attempt. */
+  private resolveOccasion(index: number, t: number): void {
+    this.lastResolved = index;
+    const slot = index & this.ringMask;
+    let device = this.bucketHead[slot] as number;
+    this.bucketHead[slot] = NONE;
+    const m = this.p.preambles;
+    const counted = t >= this.ledger.warmup;
+    const heads = this.preambleHead;
+    const counts = this.preambleCount;
+    const choose = this.preambleStream;
+
+    while (device !== NONE) {
+      const next = this.nextInBucket[device] as number;
+      const preamble = (choose.next() * m) | 0;
+      counts[preamble] = (counts[preamble] as number) + 1;
+      this.nextOnPreamble[device] = heads[preamble] as number;
+      heads[preamble] = device;
+      if (this.attempt[device] === 1) this.firstPreamble[device] = t;
+      device = next;
+    }
+
+    // Preambles are served in ascending index. Because every device picks its preamble uniformly, this
+    // is a uniformly random order of the devices (modelling choice: random service order).
+    let answered = 0;
+    let used = 0;
+    let singletons = 0;
+    const windowEnd = t + this.p.response_delay + this.p.response_window;
+    for (let preamble = 0; preamble < m; preamble++) {
+      const n = counts[preamble] as number;
+      if (n === 0) continue;
+      const first = heads[preamble] as number;
+      counts[preamble] = 0;
+      heads[preamble] = NONE;
+      used++;
+      if (n === 1) {
+        singletons++;
+        if (counted) this.ledger.preamble(this.host.groupOf[first] as number, false);
+        const detected = this.detectionStream.next() < (this.detectProbability[this.attempt[first] as number] as number);
+        if (detected && answered < this.answersPerOccasion) {
+          const responseAt = t + this.p.response_delay + Math.floor(answered / this.answersPerSubframe);
+          answered++;
+          this.resolveLoneAttempt(first, responseAt);
+        } else {
+          this.endAttempt(first, windowEnd, FAILURE);
+        }
+      } else {
+        answered += this.resolveCollision(first, t, windowEnd, answered, counted);
+      }
+    }
+    if (counted) this.ledger.occasion(index, used, singletons);
+  }
+
+  /**
+   * Devices that chose the same preamble. `unanswered`: no response, all fail when the window ends.
+   * `answered`: the preamble is detected if any transmission is, takes a response (capacity allowing),
+   * and all its devices send Msg3 on the same grant, which is never decoded; each fails when the
+   * contention-resolution timer expires after its last Msg3 transmission. Returns responses used (0/1).
+   */
+  private resolveCollision(first: number, t: number, windowEnd: number, answered: number, counted: boolean): number {
+    let detected = false;
+    for (let d = first; d !== NONE; d = this.nextOnPreamble[d] as number) {
+      if (counted) this.ledger.preamble(this.host.groupOf[d] as number, true);
+      if (this.p.collided_preambles === 'answered') {
+        if (this.detectionStream.next() < (this.detectProbability[this.attempt[d] as number] as number)) detected = true;
+      }
+    }
+    let failAt = windowEnd;
+    let used = 0;
+    if (detected && answered < this.answersPerOccasion) {
+      const responseAt = t + this.p.response_delay + Math.floor(answered / this.answersPerSubframe);
+      const msg3 = this.p.msg3;
+      failAt = responseAt + this.p.msg3_delay + (msg3.max_transmissions - 1) * msg3.round_trip + this.p.contention_resolution_timer;
+      used = 1;
+    }
+    for (let d = first; d !== NONE; d = this.nextOnPreamble[d] as number) this.endAttempt(d, failAt, FAILURE);
+    return used;
+  }
+
+  /** A lone, answered device: Msg3 with HARQ, then Msg4 with HARQ, under the contention-resolution timer. */
+  private resolveLoneAttempt(device: number, responseAt: number): void {
+    const { msg3, msg4 } = this.p;
+    const timer = this.p.contention_resolution_timer;
+    const firstMsg3 = responseAt + this.p.msg3_delay;
+    const n3 = this.transmissionsNeeded(msg3.error_probability, msg3.max_transmissions);
+    if (n3 > msg3.max_transmissions) {
+      this.endAttempt(device, firstMsg3 + (msg3.max_transmissions - 1) * msg3.round_trip + timer, FAILURE);
+      return;
+    }
+    const decodedMsg3 = firstMsg3 + (n3 - 1) * msg3.round_trip;
+    const n4 = this.transmissionsNeeded(msg4.error_probability, msg4.max_transmissions);
+    const received = decodedMsg3 + this.p.msg4_delay + (n4 - 1) * msg4.round_trip;
+    if (n4 > msg4.max_transmissions || received > decodedMsg3 + timer) {
+      this.endAttempt(device, decodedMsg3 + timer, FAILURE);
+      return;
+    }
+    this.endAttempt(device, received, SUCCESS);
+  }
+
+  /** Transmissions until the first success; max + 1 when all `max` fail. */
+  private transmissionsNeeded(errorProbability: number, max: number): number {
+    if (errorProbability === 0) return 1;
+    let n = 1;
+    while (n <= max && this.harqStream.next() < errorProbability) n++;
+    return n;
+  }
+
+  private endAttempt(device: number, t: number, outcome: number): void {
+    this.outcome[device] = outcome;
+    this.sim.at(t, this.attemptEndKind, device);
+  }
+
+  private attemptEnded(device: number, t: number): void {
+    const k = this.attempt[device] as number;
+    if (this.outcome[device] === SUCCESS) {
+      this.host.delivered(device, t, k, this.firstPreamble[device] as number);
+      return;
+    }
+    if (k >= this.p.preamble_trans_max) {
+      this.host.dropped(device, t);
+      return;
+    }
+    this.attempt[device] = k + 1;
+    // Backoff uniform in [0, backoff_indicator] (TS 36.321 5.1.4), continuous (modelling choice).
+    let ready = t + this.backoffStream.next() * this.p.backoff_indicator;
+    if (this.barring !== null && this.barring.everyAttempt) ready = this.barring.passTime(ready);
+    this.scheduleJoin(device, ready);
+  }
+}

@@ -1,0 +1,110 @@
+/**
+ * The experiment file: one schema from which the TypeScript types are inferred, the defaults are
+ * filled and the editor JSON Schema is generated. Every key documents its unit and default.
+ */
+import { z } from 'zod';
+import { accessSchema } from '../access/policies/registry.js';
+import { randomAccessSchema } from '../access/contention/params.js';
+import { metricNames } from '../metrics/catalogue.js';
+import { trafficModel, trafficSchema } from '../traffic/registry.js';
+import { duration } from './duration.js';
+
+const name = (what: string, allowDot = true) =>
+  z
+    .string()
+    .regex(
+      allowDot ? /^[A-Za-z0-9][A-Za-z0-9._-]*$/ : /^[A-Za-z0-9][A-Za-z0-9_-]*$/,
+      `${what} may use letters, digits, ${allowDot ? "'.', " : ''}'_' and '-', and must start with a letter or digit`,
+    );
+
+export const groupSchema = z
+  .strictObject({
+    count: z.number().int().positive().describe('Number of devices in the group.'),
+    traffic: trafficSchema.describe('When the devices of the group get packets.'),
+    access: accessSchema.prefault({ policy: 'contention' }),
+    deadline: duration({ positive: true, description: 'Delivery deadline of a packet, counted from its arrival (enables deadline_met_share).' }).optional(),
+  })
+  .describe('A group of devices sharing traffic model, access policy and deadline.');
+
+export const stoppingSchema = z
+  .strictObject({
+    metric: z.enum(metricNames as [string, ...string[]]).describe('Cell-level metric whose confidence interval decides when to stop.'),
+    relative_precision: z
+      .number()
+      .gt(0)
+      .lt(1)
+      .describe('γ: stop when half-width / |mean| ≤ γ/(1+γ) (Law & Kelton, relative-precision sequential procedure).'),
+    min_replications: z.number().int().min(2).default(5).describe('Replications run before the rule is first applied.'),
+    max_replications: z.number().int().min(2).default(1000).describe('Upper bound on replications.'),
+  })
+  .refine((s) => s.max_replications >= s.min_replications, {
+    message: 'max_replications must be at least min_replications',
+    path: ['max_replications'],
+  })
+  .describe('Sequential stopping: add replications until the named metric is precise enough.');
+
+export const experimentSchema = z
+  .strictObject({
+    experiment: name('experiment name').describe('Name of the experiment; results go to results/<name>/ by default.'),
+    description: z.string().optional().describe('Free text shown in reports.'),
+    seed: z
+      .union([z.number().int().nonnegative(), z.string().min(1)])
+      .default(1)
+      .describe('Root seed; every random stream is derived from it by hashing.'),
+    replications: z
+      .number()
+      .int()
+      .min(1)
+      .max(1_000_000)
+      .optional()
+      .describe('Independent replications per point (default 10; not with `stopping`).'),
+    stopping: stoppingSchema.optional(),
+    confidence_level: z.number().gt(0.5).lt(1).default(0.95).describe('Two-sided level of the Student-t confidence intervals.'),
+    common_random_numbers: z
+      .boolean()
+      .default(false)
+      .describe('When true, replication r of every point uses the same random streams (paired comparisons across points).'),
+    horizon: duration({ positive: true, description: 'Simulated time to run; required when any traffic recurs. Without it the run ends when every access is resolved.' }).optional(),
+    warmup: duration({ description: 'Packets arriving before this time are simulated but not counted.' }).default(0),
+    max_events: z
+      .number()
+      .int()
+      .positive()
+      .default(2_000_000_000)
+      .describe('Safety limit on kernel events per replication; reaching it is reported as an error.'),
+    cell: z
+      .strictObject({
+        random_access: randomAccessSchema.prefault({}),
+      })
+      .prefault({})
+      .describe('The cell: its random-access channel.'),
+    groups: z
+      .record(name('group name', false), groupSchema)
+      .refine((groups) => Object.keys(groups).length > 0, { message: 'at least one device group is needed' })
+      .describe('Device groups, keyed by name (e.g. `groups.meters.count`).'),
+  })
+  .superRefine((e, ctx) => {
+    if (e.replications !== undefined && e.stopping !== undefined) {
+      ctx.addIssue({ code: 'custom', path: ['replications'], message: 'give either `replications` or `stopping`, not both' });
+    }
+    if (e.horizon === undefined) {
+      for (const [group, g] of Object.entries(e.groups)) {
+        if (trafficModel(g.traffic.model).recurring(g.traffic)) {
+          ctx.addIssue({
+            code: 'custom',
+            path: ['groups', group, 'traffic', 'model'],
+            message: `traffic model '${g.traffic.model}' never stops sending, so the experiment needs a \`horizon\` (e.g. horizon: 1h)`,
+          });
+        }
+      }
+    } else if (e.warmup >= e.horizon) {
+      ctx.addIssue({ code: 'custom', path: ['warmup'], message: 'warmup must be shorter than horizon' });
+    }
+  })
+  .describe('A jostle experiment: a cell, its device groups, and how to replicate.');
+
+export type ExperimentConfig = z.output<typeof experimentSchema>;
+export type GroupConfig = z.output<typeof groupSchema>;
+
+/** Default replication count when neither `replications` nor `stopping` is given. */
+export const DEFAULT_REPLICATIONS = 10;

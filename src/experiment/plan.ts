@@ -1,0 +1,36 @@
+/**
+ * The plan of an experiment: its points (one per parameter combination) and how many replications
+ * each point gets. Every (point, replication) pair is an independent task with a stable index.
+ */
+import { DEFAULT_REPLICATIONS, type ExperimentConfig } from '../config/schema.js';
+
+export interface PointSpec {
+  readonly index: number;
+  /** The swept parameters of this point (path → value); empty without a sweep. */
+  readonly parameters: Readonly<Record<string, unknown>>;
+  readonly config: ExperimentConfig;
+}
+
+export type ReplicationRule =
+  | { readonly kind: 'fixed'; readonly count: number }
+  | {
+      readonly kind: 'sequential';
+      readonly metric: string;
+      readonly gamma: number;
+      readonly min: number;
+      readonly max: number;
+    };
+
+export function planPoints(config: ExperimentConfig): PointSpec[] {
+  return [{ index: 0, parameters: {}, config }];
+}
+
+/** How many replications to run; `override` (from the command line) replaces a fixed count or the rule. */
+export function replicationRule(config: ExperimentConfig, override?: number): ReplicationRule {
+  if (override !== undefined) return { kind: 'fixed', count: override };
+  const s = config.stopping;
+  if (s !== undefined) {
+    return { kind: 'sequential', metric: s.metric, gamma: s.relative_precision, min: s.min_replications, max: s.max_replications };
+  }
+  return { kind: 'fixed', count: config.replications ?? DEFAULT_REPLICATIONS };
+}

@@ -1,0 +1,71 @@
+/**
+ * Shared machinery for models in which every device of a group gets exactly one packet
+ * (3GPP TR 37.868 models 1 and 2).
+ *
+ * All arrival times are drawn up front, then put in time order with a bucket sort (expected O(N) for
+ * any smooth density), and a single kernel event walks the sorted list. The kernel therefore holds one
+ * pending arrival per group instead of one per device.
+ */
+import type { TrafficEnv, TrafficSource } from './model.js';
+
+/** Indices 0 … n−1 ordered by `times` (ties keep index order). Times must lie in [lo, hi]. */
+export function orderByTime(times: Float64Array, lo: number, hi: number): Int32Array {
+  const n = times.length;
+  const order = new Int32Array(n);
+  if (n === 0) return order;
+  const bins = n;
+  const width = hi > lo ? (hi - lo) / bins : 1;
+  const start = new Int32Array(bins + 1);
+  const binOf = new Int32Array(n);
+  for (let i = 0; i < n; i++) {
+    let b = Math.floor(((times[i] as number) - lo) / width);
+    if (b < 0) b = 0;
+    else if (b >= bins) b = bins - 1;
+    binOf[i] = b;
+    start[b + 1] = (start[b + 1] as number) + 1;
+  }
+  for (let b = 0; b < bins; b++) start[b + 1] = (start[b + 1] as number) + (start[b] as number);
+  const fill = start.slice(0, bins);
+  for (let i = 0; i < n; i++) {
+    const b = binOf[i] as number;
+    order[fill[b] as number] = i;
+    fill[b] = (fill[b] as number) + 1;
+  }
+  // Insertion sort inside each bin (bins hold ~1 element on average).
+  for (let b = 0; b < bins; b++) {
+    const from = start[b] as number;
+    const to = start[b + 1] as number;
+    for (let j = from + 1; j < to; j++) {
+      const idx = order[j] as number;
+      const t = times[idx] as number;
+      let k = j - 1;
+      while (k >= from && (times[order[k] as number] as number) > t) {
+        order[k + 1] = order[k] as number;
+        k--;
+      }
+      order[k + 1] = idx;
+    }
+  }
+  return order;
+}
+
+/**
+ * A source that delivers one packet per device at the given times (ms, one entry per device of the
+ * group, in device order). `lo`/`hi` bound the times (for the bucket sort).
+ */
+export function onceEachSource(env: TrafficEnv, times: Float64Array, lo: number, hi: number): TrafficSource {
+  const order = orderByTime(times, lo, hi);
+  let cursor = 0;
+  const first = env.firstDevice;
+  const kind = env.sim.defineEvent(`arrival/${env.group}`, () => {
+    const index = order[cursor] as number;
+    cursor++;
+    if (cursor < order.length) env.sim.at(times[order[cursor] as number] as number, kind, 0);
+    env.packetArrives(first + index);
+  });
+  return {
+    start(): void {
+      if (order.length > 0) env.sim.at(times[order[0] as number] as number, kind, 0);
+    },
+  };
+}

@@ -1,0 +1,33 @@
+/**
+ * The traffic-model registry: YAML name → schema and constructor. Adding a model is one file plus one
+ * line here.
+ */
+import { z } from 'zod';
+import { betaBurst, betaBurstSchema } from './beta-burst.js';
+import type { TrafficModelEntry } from './model.js';
+import { periodic, periodicSchema } from './periodic.js';
+import { poisson, poissonSchema } from './poisson.js';
+import { uniformWindow, uniformWindowSchema } from './uniform-window.js';
+
+export const trafficSchema = z.discriminatedUnion('model', [
+  uniformWindowSchema,
+  betaBurstSchema,
+  poissonSchema,
+  periodicSchema,
+]);
+
+export type TrafficParams = z.output<typeof trafficSchema>;
+
+const entries = [uniformWindow, betaBurst, poisson, periodic] as const;
+
+export function trafficModel(name: TrafficParams['model']): TrafficModelEntry<TrafficParams> {
+  const entry = entries.find((e) => e.name === name);
+  if (entry === undefined) throw new Error(`unknown traffic model ${name}`);
+  return entry as unknown as TrafficModelEntry<TrafficParams>;
+}
+
+export const trafficModelNames: readonly string[] = entries.map((e) => e.name);
+
+export function describeTrafficModels(): Array<{ name: string; summary: string }> {
+  return entries.map((e) => ({ name: e.name, summary: e.summary }));
+}

@@ -1,0 +1,33 @@
+/**
+ * `uniform-window`: every device gets one packet at a time drawn uniformly over a window.
+ * 3GPP TR 37.868 clause 6.1, traffic model 1 (uniform over 60 s).
+ */
+import { z } from 'zod';
+import { duration } from '../config/duration.js';
+import type { TrafficModelEntry } from './model.js';
+import { onceEachSource } from './once-each.js';
+
+export const uniformWindowSchema = z
+  .strictObject({
+    model: z.literal('uniform-window'),
+    window: duration({ positive: true, description: 'Length of the activation window (TR 37.868 model 1: 60s).' }).default(
+      60_000,
+    ),
+    start: duration({ description: 'When the window opens.' }).default(0),
+  })
+  .describe('Each device activates once, uniformly over a window (3GPP TR 37.868 traffic model 1).');
+
+export type UniformWindowParams = z.output<typeof uniformWindowSchema>;
+
+export const uniformWindow: TrafficModelEntry<UniformWindowParams> = {
+  name: 'uniform-window',
+  summary: 'each device activates once, uniformly over `window` (TR 37.868 model 1)',
+  schema: uniformWindowSchema,
+  recurring: () => false,
+  create(params, env) {
+    const s = env.stream('times');
+    const times = new Float64Array(env.deviceCount);
+    for (let i = 0; i < times.length; i++) times[i] = params.start + s.next() * params.window;
+    return onceEachSource(env, times, params.start, params.start + params.window);
+  },
+};
