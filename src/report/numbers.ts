@@ -20,7 +20,8 @@ export function significant(x: number, digits = 4): string {
 /** "mean ± half-width" with matching precision; the half-width alone decides the decimals. */
 export function withInterval(mean: number, halfWidth: number): { mean: string; halfWidth: string } {
   if (!Number.isFinite(mean)) return { mean: '—', halfWidth: '' };
-  const d = decimalsFor(halfWidth);
+  // A half-width at the level of floating-point noise is zero.
+  const d = halfWidth <= 1e-9 * Math.abs(mean) ? -1 : decimalsFor(halfWidth);
   if (d < 0) return { mean: significant(mean), halfWidth: Number.isFinite(halfWidth) ? '0' : 'n/a' };
   return { mean: mean.toFixed(d), halfWidth: halfWidth.toFixed(d) };
 }

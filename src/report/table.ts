@@ -21,7 +21,7 @@ function pad(text: string, width: number, right = false): string {
 }
 
 function rows(metrics: Record<string, Summary>, pick: (name: string) => boolean, level: number): string[] {
-  const entries = Object.entries(metrics).filter(([name]) => pick(name));
+  const entries = Object.entries(metrics).filter(([name, s]) => pick(name) && s.n > 0);
   const nameWidth = Math.max(6, ...entries.map(([n]) => n.length));
   const pct = `${Math.round(level * 1000) / 10} %`;
   const lines = [`  ${pad('metric', nameWidth)}  ${pad('mean', 14, true)}  ${pad(`± (${pct})`, 12, true)}  ${pad('n', 4, true)}`];
