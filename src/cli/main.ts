@@ -87,7 +87,9 @@ export async function main(argv: string[]): Promise<void> {
     .wrap(Math.min(100, process.stdout.columns || 100))
     .fail((message, error) => {
       if (error !== undefined && error !== null && message === null) throw error;
-      process.stderr.write(`jostle: ${message ?? String(error)}\nRun 'jostle --help' for usage.\n`);
+      const text = message ?? String(error);
+      const unknown = /^Did you mean/.test(text) ? `unknown command '${process.argv[2] ?? ''}'. ` : '';
+      process.stderr.write(`jostle: ${unknown}${text}\nRun 'jostle --help' for usage.\n`);
       process.exit(EXIT_USAGE);
     })
     .parseAsync();

@@ -2,6 +2,7 @@
 import { join } from 'node:path';
 import { renderConfig } from '../config/load.js';
 import { runExperiment } from '../experiment/run.js';
+import { withReplications } from '../experiment/plan.js';
 import { ReplicationError } from '../experiment/replicate.js';
 import { replicationsCsv } from '../report/csv.js';
 import { writeFileAtomic } from '../report/files.js';
@@ -21,13 +22,13 @@ export interface RunCommandOptions {
 
 export function runCommand(o: RunCommandOptions): number {
   const sets = o.seed === undefined ? o.sets : [...o.sets, `seed=${o.seed}`];
-  const { config } = loadOrFail(o.file, sets);
+  const loaded = loadOrFail(o.file, sets).config;
+  const config = o.reps === undefined ? loaded : withReplications(loaded, o.reps);
   const outDir = o.out ?? join('results', config.experiment);
   const started = Date.now();
   let done = 0;
   try {
     const result = runExperiment(config, {
-      ...(o.reps === undefined ? {} : { replications: o.reps }),
       onReplication: () => {
         done++;
         if (!o.quiet && process.stderr.isTTY) process.stderr.write(`\r${done} replications done`);

@@ -34,6 +34,9 @@ export const DURATION_EXPECTED = `a number with a unit, e.g. \`10ms\` or \`2.5s\
 /** Regular expression source matching an accepted duration string (also used in the JSON Schema). */
 export const DURATION_PATTERN = '^\\s*(0|[0-9]+(\\.[0-9]+)?\\s*(us|µs|μs|ms|s|min|h|d))\\s*$';
 
+/** The same without the bare `0` (for durations that must be positive). */
+export const POSITIVE_DURATION_PATTERN = '^\\s*[0-9]+(\\.[0-9]+)?\\s*(us|µs|μs|ms|s|min|h|d)\\s*$';
+
 const DURATION_RE = /^([0-9]+)(?:\.([0-9]+))?\s*(us|µs|μs|ms|s|min|h|d)$/u;
 
 /** Common misspellings of unit symbols → the accepted symbol. */
@@ -208,8 +211,11 @@ export function duration(options: DurationOptions = {}) {
   if (options.min !== undefined && options.max !== undefined && options.min > options.max) {
     throw new RangeError(`duration(): min ${options.min} > max ${options.max}`);
   }
+  const zeroAllowed = options.positive !== true && (options.min === undefined || options.min <= 0);
   const input = z.union(
-    [z.string().meta({ pattern: DURATION_PATTERN }), z.number().meta({ const: 0 })],
+    zeroAllowed
+      ? [z.string().meta({ pattern: DURATION_PATTERN }), z.number().meta({ const: 0 })]
+      : [z.string().meta({ pattern: POSITIVE_DURATION_PATTERN })],
     { error: () => `expected a duration: a number with a unit (${DURATION_UNITS})` },
   );
   const schema = input

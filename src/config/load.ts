@@ -2,6 +2,7 @@
  * Loading an experiment: read the YAML file, apply `--set` overrides, validate against the schema.
  * Returns the typed config or every problem found; never throws for bad input.
  */
+import { readFileSync } from 'node:fs';
 import { applyOverrides } from './overrides.js';
 import type { Problem } from './problems.js';
 import { DEFAULT_REPLICATIONS, experimentSchema, type ExperimentConfig } from './schema.js';
@@ -25,7 +26,16 @@ function finish(parsed: { ok: true; source: YamlSource } | { ok: false; problems
 }
 
 export function loadExperimentFile(file: string, sets: readonly string[] = []): LoadResult {
-  return finish(readYamlSource(file), sets);
+  const result = finish(readYamlSource(file), sets);
+  if (result.ok || result.sources.size > 0) return result;
+  // A syntax error: keep the text for the caret excerpt.
+  let text: string | undefined;
+  try {
+    text = readFileSync(file, 'utf8');
+  } catch {
+    text = undefined;
+  }
+  return text === undefined ? result : { ...result, sources: new Map([[file, text]]) };
 }
 
 export function loadExperimentText(file: string, text: string, sets: readonly string[] = []): LoadResult {

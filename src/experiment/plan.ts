@@ -34,3 +34,9 @@ export function replicationRule(config: ExperimentConfig, override?: number): Re
   }
   return { kind: 'fixed', count: config.replications ?? DEFAULT_REPLICATIONS };
 }
+
+/** The config with a fixed replication count in place of its count or stopping rule (`--reps`). */
+export function withReplications(config: ExperimentConfig, count: number): ExperimentConfig {
+  const { stopping: _dropped, ...rest } = config;
+  return { ...rest, replications: count };
+}

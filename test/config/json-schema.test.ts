@@ -3,7 +3,7 @@
 // editor schemas. Duration units are SI (see duration.test.ts).
 import { describe, expect, it } from 'vitest';
 import { toEditorSchema } from '../../src/config/json-schema.js';
-import { DURATION_PATTERN, parseDuration } from '../../src/config/duration.js';
+import { DURATION_PATTERN, POSITIVE_DURATION_PATTERN, parseDuration } from '../../src/config/duration.js';
 import { demoSchema } from './demo-schema.js';
 
 type Json = Record<string, unknown>;
@@ -20,10 +20,13 @@ describe('toEditorSchema', () => {
 
   it('describes a duration as a string with a pattern (or the number 0) and a description', () => {
     const horizon = props['horizon'] as Json;
-    const branches = horizon['anyOf'] as Json[];
-    expect(branches[0]).toEqual({ type: 'string', pattern: DURATION_PATTERN });
-    expect(branches[1]).toEqual({ type: 'number', const: 0 });
+    // horizon must be positive: a unit is required and a bare 0 is not offered.
+    const branches = (horizon['anyOf'] as Json[] | undefined) ?? [horizon];
+    expect(branches[0]).toMatchObject({ type: 'string', pattern: POSITIVE_DURATION_PATTERN });
+    expect(branches.some((b) => b['const'] === 0)).toBe(false);
     expect(horizon['description']).toMatch(/ms.*min/);
+    expect(new RegExp(POSITIVE_DURATION_PATTERN, 'u').test('0')).toBe(false);
+    expect(new RegExp(POSITIVE_DURATION_PATTERN, 'u').test('10ms')).toBe(true);
   });
 
   it('keeps descriptions and defaults, showing a duration default with its unit', () => {
