@@ -1,23 +1,32 @@
 /**
  * One cell for one replication: the devices (as typed-array columns), their groups' traffic sources
- * and access policies, the shared contention procedure, and the ledger that records outcomes.
+ * and access policies, the shared contention procedure, the uplink pool and grant scheduler, and the
+ * ledger that records outcomes.
  *
  * Packet life cycle: a packet arrives (traffic) → if the device is idle it becomes the head-of-line
  * packet and the group's policy is asked to send it; otherwise it waits in the device's buffer (FIFO).
- * When the policy reports it delivered or dropped, the next buffered packet (if any) starts at once.
+ * When the packet is delivered or dropped, the next buffered packet (if any) starts at once.
  * Modelling choice: one access carries one packet.
  */
 import { Simulator } from '../kernel/index.js';
 import type { StreamSet } from '../random/index.js';
 import { Ledger } from '../metrics/ledger.js';
+import { AgeTracker, type AgeSummary } from '../metrics/age.js';
 import type { InProgressCounts } from '../metrics/tally.js';
 import type { TrafficParams } from '../traffic/registry.js';
 import { trafficModel } from '../traffic/registry.js';
-import type { TrafficEnv } from '../traffic/model.js';
+import type { TrafficEnv, TrafficSource } from '../traffic/model.js';
+import type { Positions } from '../geometry/positions.js';
+import { createLayout, type LayoutParams } from '../geometry/layout.js';
 import { ContentionProcedure, type ContentionHost } from './contention/procedure.js';
 import type { RandomAccessParams } from './contention/params.js';
-import type { AccessPolicy } from './policy.js';
+import type { AccessPolicy, PolicyHost } from './policy.js';
 import { createPolicy, type AccessParams } from './policies/registry.js';
+import { UplinkPool } from './grants/pool.js';
+import type { UplinkParams } from './grants/params.js';
+import { GrantScheduler } from './grants/scheduler.js';
+import type { ConfiguredGrants } from './grants/configured.js';
+import type { DynamicGrants } from './grants/dynamic.js';
 
 export interface GroupPlan {
   readonly name: string;
@@ -26,11 +35,17 @@ export interface GroupPlan {
   readonly access: AccessParams;
   /** ms; Infinity when the group has no deadline. */
   readonly deadline: number;
+  readonly layout: LayoutParams;
+  /** Positions read from a layout CSV at load time (only for `layout.model: csv`). */
+  readonly csvPositions?: Positions;
 }
 
 export interface CellPlan {
   readonly groups: readonly GroupPlan[];
   readonly randomAccess: RandomAccessParams;
+  readonly uplink: UplinkParams;
+  /** Cell radius in metres (layouts, alarm epicentres). */
+  readonly radius: number;
   /** End of simulated time in ms; Infinity: run until every access is resolved. */
   readonly horizon: number;
   /** Packets arriving before this time (ms) are simulated but not counted. */
@@ -42,12 +57,13 @@ export interface CellPlan {
 export interface CellOutcome {
   readonly ledger: Ledger;
   readonly open: InProgressCounts;
+  readonly ages: readonly AgeSummary[];
   readonly endTime: number;
   readonly events: number;
   readonly stopReason: string;
 }
 
-export class Cell implements ContentionHost {
+export class Cell implements ContentionHost, PolicyHost {
   readonly sim: Simulator;
   readonly ledger: Ledger;
   readonly groupOf: Uint16Array;
@@ -56,8 +72,14 @@ export class Cell implements ContentionHost {
   /** Packets waiting behind the head-of-line one, per device (rare: a Map keeps idle devices free). */
   private readonly backlog = new Map<number, number[]>();
   private readonly policies: AccessPolicy[] = [];
+  private readonly sources: TrafficSource[] = [];
+  private readonly fresh: boolean[] = [];
   private readonly plan: CellPlan;
   private readonly deviceCount: number;
+  private readonly firsts: number[] = [];
+  private readonly ages: AgeTracker;
+  private readonly configured: ConfiguredGrants[] = [];
+  private readonly scheduler: GrantScheduler;
 
   constructor(plan: CellPlan, streams: StreamSet) {
     this.plan = plan;
@@ -72,44 +94,75 @@ export class Cell implements ContentionHost {
       warmup: plan.warmup,
       maxPreambleTransmissions: plan.randomAccess.preamble_trans_max,
     });
-    const contention = new ContentionProcedure(plan.randomAccess, this, streams, this.deviceCount);
+    this.ages = new AgeTracker(this.groupOf, plan.groups.length, plan.warmup);
+    const ra = plan.randomAccess;
+    const harq = plan.uplink.harq;
+    const poolHorizon =
+      plan.uplink.grant_delay +
+      harq.max_transmissions * harq.round_trip +
+      ra.response_delay +
+      ra.response_window +
+      ra.msg3_delay +
+      ra.msg3.max_transmissions * ra.msg3.round_trip +
+      ra.occasion_period;
+    const pool = new UplinkPool(plan.uplink.capacity, poolHorizon);
+    const contention = new ContentionProcedure(ra, this, streams, this.deviceCount, plan.uplink.msg3 === 'shared' ? pool : null);
 
+    const dynamic: DynamicGrants[] = [];
     let first = 0;
-    const sources = plan.groups.map((group, g) => {
+    plan.groups.forEach((group, g) => {
+      this.firsts.push(first);
       this.groupOf.fill(g, first, first + group.count);
-      this.policies.push(
-        createPolicy(group.access, {
-          sim: this.sim,
-          ledger: this.ledger,
-          streams,
-          group: group.name,
-          groupIndex: g,
-          firstDevice: first,
-          deviceCount: group.count,
-          contention,
-        }),
-      );
+      let positions: Positions | null = null;
+      const positionsOf = (): Positions => {
+        positions ??= createLayout(group.layout, group.count, streams.stream(`layout/${group.name}`), plan.radius, group.csvPositions);
+        return positions;
+      };
+      const built = createPolicy(group.access, {
+        host: this,
+        streams,
+        group: group.name,
+        groupIndex: g,
+        firstDevice: first,
+        deviceCount: group.count,
+        contention,
+        uplink: plan.uplink,
+        pool,
+        positions: positionsOf,
+      });
+      this.policies.push(built.policy);
+      if (built.dynamic !== undefined) dynamic.push(built.dynamic);
+      if (built.configured !== undefined) this.configured.push(built.configured);
+      const model = trafficModel(group.traffic.model);
+      this.fresh.push(model.freshAtTransmission === true);
       const env: TrafficEnv = {
         sim: this.sim,
         group: group.name,
         firstDevice: first,
         deviceCount: group.count,
         horizon: plan.horizon,
+        cellRadius: plan.radius,
+        positions: model.needsPositions?.(group.traffic) === true ? positionsOf() : null,
         stream: (purpose) => streams.stream(`traffic/${group.name}/${purpose}`),
         packetArrives: (device) => this.packetArrives(device),
       };
       first += group.count;
-      return trafficModel(group.traffic.model).create(group.traffic, env);
+      this.sources.push(model.create(group.traffic, env));
     });
-    for (const source of sources) source.start();
+    this.scheduler = new GrantScheduler(this.sim, plan.uplink, pool, dynamic, this.configured);
+    for (const source of this.sources) source.start();
+    this.scheduler.start();
   }
 
   run(): CellOutcome {
     const result = this.sim.run(this.plan.horizon);
     const endTime = Number.isFinite(this.plan.horizon) ? this.plan.horizon : Math.max(this.ledger.lastOutcomeTime, this.sim.now);
+    this.ledger.closeBacklog(endTime);
+    for (const c of this.configured) c.finalize(this.plan.warmup, endTime);
     return {
       ledger: this.ledger,
       open: this.countOpen(endTime),
+      ages: this.ages.summarize(this.firsts, this.plan.groups.map((g) => g.count), endTime),
       endTime,
       events: result.events,
       stopReason: result.reason,
@@ -135,13 +188,23 @@ export class Cell implements ContentionHost {
     (this.policies[this.groupOf[device] as number] as AccessPolicy).begin(device);
   }
 
-  delivered(device: number, t: number, preambleTx: number, firstPreamble: number): void {
-    this.ledger.delivered(this.groupOf[device] as number, this.holArrival[device] as number, t, preambleTx, firstPreamble);
+  transmissionStarts(device: number, t: number): void {
+    if (this.fresh[this.groupOf[device] as number] === true) this.holArrival[device] = t;
+  }
+
+  delivered(device: number, t: number, preambleTx: number, firstPreamble: number, seenStart: number): void {
+    const g = this.groupOf[device] as number;
+    const arrival = this.holArrival[device] as number;
+    this.ledger.delivered(g, arrival, t, preambleTx, firstPreamble);
+    this.ages.delivered(device, arrival, t);
+    (this.policies[g] as AccessPolicy).finished?.(device, t, true, seenStart);
     this.nextPacket(device);
   }
 
   dropped(device: number, t: number): void {
-    this.ledger.droppedPacket(this.groupOf[device] as number, this.holArrival[device] as number, t);
+    const g = this.groupOf[device] as number;
+    this.ledger.droppedPacket(g, this.holArrival[device] as number, t);
+    (this.policies[g] as AccessPolicy).finished?.(device, t, false, Number.NaN);
     this.nextPacket(device);
   }
 
@@ -149,6 +212,7 @@ export class Cell implements ContentionHost {
     const queue = this.backlog.get(device);
     if (queue === undefined) {
       this.busy[device] = 0;
+      (this.sources[this.groupOf[device] as number] as TrafficSource).deviceIdle?.(device - (this.firsts[this.groupOf[device] as number] as number));
       return;
     }
     const arrival = queue.shift() as number;

@@ -20,7 +20,7 @@ function scaled(s: Summary, k: number): Summary {
 export function runCheckCase(c: CheckCase): CheckLine[] {
   const loaded = loadExperimentText(`check:${c.id}`, c.yaml);
   if (!loaded.ok) throw new ConfigError(loaded.problems);
-  const result = runExperiment(loaded.config);
+  const result = runExperiment(loaded.config, { points: loaded.points, baseDir: loaded.baseDir });
   const point = result.points[0];
   if (point === undefined) throw new Error(`check ${c.id} produced no point`);
   const metric = (name: string): Summary => {

@@ -2,7 +2,7 @@
 import { join } from 'node:path';
 import { renderConfig } from '../config/load.js';
 import { runExperiment } from '../experiment/run.js';
-import { withReplications } from '../experiment/plan.js';
+import { pointsWithReplications, withReplications } from '../experiment/plan.js';
 import { ReplicationError } from '../experiment/replicate.js';
 import { replicationsCsv } from '../report/csv.js';
 import { writeFileAtomic } from '../report/files.js';
@@ -22,13 +22,16 @@ export interface RunCommandOptions {
 
 export function runCommand(o: RunCommandOptions): number {
   const sets = o.seed === undefined ? o.sets : [...o.sets, `seed=${o.seed}`];
-  const loaded = loadOrFail(o.file, sets).config;
-  const config = o.reps === undefined ? loaded : withReplications(loaded, o.reps);
+  const loaded = loadOrFail(o.file, sets);
+  const config = o.reps === undefined ? loaded.config : withReplications(loaded.config, o.reps);
+  const points = o.reps === undefined ? loaded.points : pointsWithReplications(loaded.points, o.reps);
   const outDir = o.out ?? join('results', config.experiment);
   const started = Date.now();
   let done = 0;
   try {
     const result = runExperiment(config, {
+      points,
+      baseDir: loaded.baseDir,
       onReplication: () => {
         done++;
         if (!o.quiet && process.stderr.isTTY) process.stderr.write(`\r${done} replications done`);

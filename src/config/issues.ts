@@ -8,7 +8,8 @@ import { closestKey } from './closest-key.js';
 import { kindOf, oneOf, renderValue, typeWords } from './describe-value.js';
 import { DURATION_EXPECTED } from './duration.js';
 import type { ProblemCode } from './problems.js';
-import { isDurationAt, schemasAt, validKeysAt, valuesOf } from './schema-walk.js';
+import { isDurationAt, isLengthAt, schemasAt, validKeysAt, valuesOf } from './schema-walk.js';
+import { LENGTH_EXPECTED } from './length.js';
 
 type Issue = z.core.$ZodIssue;
 type Path = (string | number)[];
@@ -227,8 +228,9 @@ function baseDrafts(issue: Issue, path: Path, ctx: IssueContext): Draft[] {
 /** A value that is not even a string or number where a duration belongs is a `bad-unit` problem too. */
 function asDuration(d: Draft, ctx: IssueContext): Draft {
   if (d.code !== 'invalid-type' && d.code !== 'missing-key') return d;
-  if (!isDurationAt(ctx.schema, d.path, ctx.data)) return d;
-  return { ...d, code: d.code === 'missing-key' ? d.code : 'bad-unit', expected: DURATION_EXPECTED };
+  const expected = isDurationAt(ctx.schema, d.path, ctx.data) ? DURATION_EXPECTED : isLengthAt(ctx.schema, d.path, ctx.data) ? LENGTH_EXPECTED : undefined;
+  if (expected === undefined) return d;
+  return { ...d, code: d.code === 'missing-key' ? d.code : 'bad-unit', expected };
 }
 
 /** Drafts for one zod issue whose path is relative to `prefix` (non-empty inside unions). */

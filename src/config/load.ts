@@ -3,6 +3,9 @@
  * Returns the typed config or every problem found; never throws for bad input.
  */
 import { readFileSync } from 'node:fs';
+import { dirname, resolve } from 'node:path';
+import { checkDataFiles } from './data-files.js';
+import { expandSweep, type PointSpec } from './sweep.js';
 import { applyOverrides } from './overrides.js';
 import type { Problem } from './problems.js';
 import { DEFAULT_REPLICATIONS, experimentSchema, type ExperimentConfig } from './schema.js';
@@ -11,22 +14,36 @@ import { parseYamlSource, readYamlSource, type YamlSource } from './yaml-source.
 import { deepFreeze } from './deep-freeze.js';
 import { renderForYaml } from './render.js';
 
+/** A loaded experiment: the base config, its points (one without a sweep), and the folder data files are relative to. */
+export interface LoadedExperiment {
+  readonly config: ExperimentConfig;
+  readonly points: readonly PointSpec[];
+  readonly source: YamlSource;
+  readonly baseDir: string;
+}
+
 export type LoadResult =
-  | { readonly ok: true; readonly config: ExperimentConfig; readonly source: YamlSource }
+  | ({ readonly ok: true } & LoadedExperiment)
   | { readonly ok: false; readonly problems: readonly Problem[]; readonly sources: ReadonlyMap<string, string> };
 
-function finish(parsed: { ok: true; source: YamlSource } | { ok: false; problems: Problem[] }, sets: readonly string[]): LoadResult {
+function finish(parsed: { ok: true; source: YamlSource } | { ok: false; problems: Problem[] }, sets: readonly string[], baseDir: string): LoadResult {
   if (!parsed.ok) return { ok: false, problems: parsed.problems, sources: new Map() };
   const sources = new Map([[parsed.source.file, parsed.source.text]]);
   const overridden = applyOverrides(parsed.source, sets);
   if (!overridden.ok) return { ok: false, problems: overridden.problems, sources };
   const validated = validateSource(overridden.source, experimentSchema, overridden.overridden);
   if (!validated.ok) return { ok: false, problems: validated.problems, sources };
-  return { ok: true, config: deepFreeze(validated.value), source: overridden.source };
+  const config = deepFreeze(validated.value);
+  const expanded = expandSweep(overridden.source, config, overridden.overridden);
+  if (!expanded.ok) return { ok: false, problems: expanded.problems, sources };
+  const fileProblems = checkDataFiles([config, ...expanded.points.map((p) => p.config)], baseDir);
+  if (fileProblems.length > 0) return { ok: false, problems: fileProblems, sources };
+  const points = expanded.points.map((p) => ({ ...p, config: deepFreeze(p.config) }));
+  return { ok: true, config, points, source: overridden.source, baseDir };
 }
 
 export function loadExperimentFile(file: string, sets: readonly string[] = []): LoadResult {
-  const result = finish(readYamlSource(file), sets);
+  const result = finish(readYamlSource(file), sets, dirname(resolve(file)));
   if (result.ok || result.sources.size > 0) return result;
   // A syntax error: keep the text for the caret excerpt.
   let text: string | undefined;
@@ -38,8 +55,9 @@ export function loadExperimentFile(file: string, sets: readonly string[] = []): 
   return text === undefined ? result : { ...result, sources: new Map([[file, text]]) };
 }
 
-export function loadExperimentText(file: string, text: string, sets: readonly string[] = []): LoadResult {
-  return finish(parseYamlSource(file, text), sets);
+/** Loads YAML text; data files are relative to `baseDir` (default: the working folder). */
+export function loadExperimentText(file: string, text: string, sets: readonly string[] = [], baseDir = process.cwd()): LoadResult {
+  return finish(parseYamlSource(file, text), sets, baseDir);
 }
 
 /** The resolved config in its YAML input form (durations with units). */

@@ -5,6 +5,7 @@
  */
 import type { z } from 'zod';
 import { formatDuration, isDurationSchema } from './duration.js';
+import { formatLength, isLengthSchema } from './length.js';
 
 type Def = { type: string; [key: string]: unknown };
 
@@ -41,9 +42,15 @@ function pickUnionOption(options: readonly z.core.$ZodType[], value: unknown, di
 
 export function renderForYaml(schema: z.core.$ZodType, value: unknown): unknown {
   if (value === undefined || value === null) return value;
-  if (isDurationSchema(schema) && typeof value === 'number') return formatDuration(value);
+  if (typeof value === 'number') {
+    if (isDurationSchema(schema)) return formatDuration(value);
+    if (isLengthSchema(schema)) return formatLength(value);
+  }
   const s = unwrap(schema);
-  if (isDurationSchema(s) && typeof value === 'number') return formatDuration(value);
+  if (typeof value === 'number') {
+    if (isDurationSchema(s)) return formatDuration(value);
+    if (isLengthSchema(s)) return formatLength(value);
+  }
   const def = defOf(s);
   switch (def.type) {
     case 'object': {

@@ -8,6 +8,7 @@
  */
 import type { z } from 'zod';
 import { isDurationSchema } from './duration.js';
+import { isLengthSchema } from './length.js';
 
 type Schema = z.core.$ZodType;
 
@@ -44,7 +45,7 @@ export function unwrapChain(s: Schema): Schema[] {
     let next: Schema | undefined;
     if (WRAPPERS.has(def.type)) next = def.innerType;
     else if (def.type === 'lazy') next = def.getter?.();
-    else if (def.type === 'pipe' && !isDurationSchema(cur)) {
+    else if (def.type === 'pipe' && !isDurationSchema(cur) && !isLengthSchema(cur)) {
       next = def.in !== undefined && defOf(def.in).type === 'transform' ? def.out : def.in;
     }
     if (next === undefined) return chain;
@@ -132,6 +133,11 @@ export function schemasAt(schema: Schema, path: readonly PropertyKey[], data: un
 /** True when the schema at `path` is a duration (through wrappers). */
 export function isDurationAt(schema: Schema, path: readonly PropertyKey[], data: unknown): boolean {
   return schemasAt(schema, path, data).some((s) => unwrapChain(s).some(isDurationSchema));
+}
+
+/** True when the schema at `path` is a length (through wrappers). */
+export function isLengthAt(schema: Schema, path: readonly PropertyKey[], data: unknown): boolean {
+  return schemasAt(schema, path, data).some((s) => unwrapChain(s).some(isLengthSchema));
 }
 
 /** Keys valid for a map schema `s` given its data (object shape keys, enum record keys, union branches). */

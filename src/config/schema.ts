@@ -7,7 +7,12 @@ import { accessSchema } from '../access/policies/registry.js';
 import { randomAccessSchema } from '../access/contention/params.js';
 import { metricNames } from '../metrics/catalogue.js';
 import { trafficModel, trafficSchema } from '../traffic/registry.js';
+import { uplinkSchema } from '../access/grants/params.js';
+import { energySchema } from '../metrics/energy.js';
+import { layoutSchema } from '../geometry/layout.js';
 import { duration } from './duration.js';
+import { length } from './length.js';
+import { sweepSchema } from './sweep-schema.js';
 
 const name = (what: string, allowDot = true) =>
   z
@@ -23,6 +28,9 @@ export const groupSchema = z
     traffic: trafficSchema.describe('When the devices of the group get packets.'),
     access: accessSchema.prefault({ policy: 'contention' }),
     deadline: duration({ positive: true, description: 'Delivery deadline of a packet, counted from its arrival (enables deadline_met_share).' }).optional(),
+    layout: layoutSchema
+      .prefault({ model: 'uniform-disc' })
+      .describe('Where the devices are (used by alarm-field traffic and the neighbour predictor).'),
   })
   .describe('A group of devices sharing traffic model, access policy and deadline.');
 
@@ -74,10 +82,28 @@ export const experimentSchema = z
       .describe('Safety limit on kernel events per replication; reaching it is reported as an error.'),
     cell: z
       .strictObject({
+        radius: length({ positive: true, description: 'Cell radius (device layouts, alarm epicentres).' }).prefault('500m'),
         random_access: randomAccessSchema.prefault({}),
+        uplink: uplinkSchema.prefault({}),
+        energy: energySchema.prefault({}),
       })
       .prefault({})
-      .describe('The cell: its random-access channel.'),
+      .describe('The cell: its random-access channel, scheduled uplink resources and device power model.'),
+    sweep: sweepSchema.optional(),
+    report: z
+      .strictObject({
+        compare_metrics: z
+          .array(z.enum(metricNames as [string, ...string[]]))
+          .min(1)
+          .default(['throughput_per_s', 'delay_p95_ms', 'deadline_met_share', 'grants_wasted', 'energy_per_delivered_packet_mj'])
+          .describe('Metrics shown side by side when the experiment has several points.'),
+        compare_groups: z
+          .array(z.string())
+          .optional()
+          .describe('Groups that get their own comparison table (default: the groups with a deadline).'),
+      })
+      .prefault({})
+      .describe('What the terminal report shows (every metric is always in the files).'),
     groups: z
       .record(name('group name', false), groupSchema)
       .refine((groups) => Object.keys(groups).length > 0, { message: 'at least one device group is needed' })
@@ -89,6 +115,13 @@ export const experimentSchema = z
     }
     if (e.horizon === undefined) {
       for (const [group, g] of Object.entries(e.groups)) {
+        if (g.access.policy === 'random-grant' || g.access.policy === 'predicted-grant') {
+          ctx.addIssue({
+            code: 'custom',
+            path: ['groups', group, 'access', 'policy'],
+            message: `'${g.access.policy}' hands out grants at every occasion without end, so the experiment needs a \`horizon\` (e.g. horizon: 10min)`,
+          });
+        }
         if (trafficModel(g.traffic.model).recurring(g.traffic)) {
           ctx.addIssue({
             code: 'custom',
@@ -100,8 +133,35 @@ export const experimentSchema = z
     } else if (e.warmup >= e.horizon) {
       ctx.addIssue({ code: 'custom', path: ['warmup'], message: 'warmup must be shorter than horizon' });
     }
+    checkConfiguredGrants(e, ctx);
+    (e.report.compare_groups ?? []).forEach((g, i) => {
+      if (!(g in e.groups)) {
+        ctx.addIssue({ code: 'custom', path: ['report', 'compare_groups', i], message: `no group named '${g}'; groups: ${Object.keys(e.groups).join(', ')}` });
+      }
+    });
   })
   .describe('A jostle experiment: a cell, its device groups, and how to replicate.');
+
+/** Configured grants reserve capacity: every subframe must hold the reservations of all groups. */
+function checkConfiguredGrants(
+  e: { cell: { uplink: { capacity: number } }; groups: Record<string, { count: number; access: { policy: string; period?: number } }> },
+  ctx: z.RefinementCtx,
+): void {
+  let reserved = 0;
+  const names: string[] = [];
+  for (const [name, g] of Object.entries(e.groups)) {
+    if (g.access.policy !== 'configured-grant' || g.access.period === undefined) continue;
+    reserved += Math.ceil(g.count / g.access.period);
+    names.push(name);
+  }
+  if (reserved > e.cell.uplink.capacity) {
+    ctx.addIssue({
+      code: 'custom',
+      path: ['groups', names[names.length - 1] as string, 'access', 'period'],
+      message: `configured grants of ${names.join(', ')} reserve up to ${reserved} transmissions per subframe but cell.uplink.capacity is ${e.cell.uplink.capacity}: lengthen the period(s) or raise the capacity`,
+    });
+  }
+}
 
 export type ExperimentConfig = z.output<typeof experimentSchema>;
 export type GroupConfig = z.output<typeof groupSchema>;

@@ -3,13 +3,9 @@
  * each point gets. Every (point, replication) pair is an independent task with a stable index.
  */
 import { DEFAULT_REPLICATIONS, type ExperimentConfig } from '../config/schema.js';
+import type { PointSpec } from '../config/sweep.js';
 
-export interface PointSpec {
-  readonly index: number;
-  /** The swept parameters of this point (path → value); empty without a sweep. */
-  readonly parameters: Readonly<Record<string, unknown>>;
-  readonly config: ExperimentConfig;
-}
+export type { PointSpec };
 
 export type ReplicationRule =
   | { readonly kind: 'fixed'; readonly count: number }
@@ -21,8 +17,9 @@ export type ReplicationRule =
       readonly max: number;
     };
 
-export function planPoints(config: ExperimentConfig): PointSpec[] {
-  return [{ index: 0, parameters: {}, config }];
+/** The single point of an experiment without a sweep (sweeps are expanded by the loader). */
+export function singlePoint(config: ExperimentConfig): PointSpec[] {
+  return [{ index: 0, parameters: {}, label: 'base', config }];
 }
 
 /** How many replications to run; `override` (from the command line) replaces a fixed count or the rule. */
@@ -39,4 +36,9 @@ export function replicationRule(config: ExperimentConfig, override?: number): Re
 export function withReplications(config: ExperimentConfig, count: number): ExperimentConfig {
   const { stopping: _dropped, ...rest } = config;
   return { ...rest, replications: count };
+}
+
+/** The same for every point of a sweep. */
+export function pointsWithReplications(points: readonly PointSpec[], count: number): PointSpec[] {
+  return points.map((p) => ({ ...p, config: withReplications(p.config, count) }));
 }

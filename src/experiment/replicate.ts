@@ -3,10 +3,13 @@
  * A pure function of (config, point index, replication index): the same inputs give the same record
  * in any process, worker or shard.
  */
-import { Cell, type CellPlan } from '../access/cell.js';
+import { Cell, type CellPlan, type GroupPlan } from '../access/cell.js';
+import { layoutPositionsFromCsv } from '../geometry/layout-files.js';
+import { resolveDataFile } from '../config/data-files.js';
 import type { ExperimentConfig } from '../config/schema.js';
 import { computeMetrics, type MetricValues } from '../metrics/catalogue.js';
 import { cellTally, groupTally, type Tally } from '../metrics/tally.js';
+import type { AgeSummary } from '../metrics/age.js';
 import { replicationSeed, StreamSet } from '../random/index.js';
 
 export interface ReplicationRecord {
@@ -31,16 +34,22 @@ export class ReplicationError extends Error {
   }
 }
 
-export function cellPlan(config: ExperimentConfig): CellPlan {
+export function cellPlan(config: ExperimentConfig, baseDir = process.cwd()): CellPlan {
   return {
-    groups: Object.entries(config.groups).map(([name, g]) => ({
-      name,
-      count: g.count,
-      traffic: g.traffic,
-      access: g.access,
-      deadline: g.deadline ?? Infinity,
-    })),
+    groups: Object.entries(config.groups).map(([name, g]) => {
+      const plan: GroupPlan = {
+        name,
+        count: g.count,
+        traffic: g.traffic.model === 'trace' ? { ...g.traffic, file: resolveDataFile(baseDir, g.traffic.file) } : g.traffic,
+        access: g.access,
+        deadline: g.deadline ?? Infinity,
+        layout: g.layout,
+      };
+      return g.layout.model === 'csv' ? { ...plan, csvPositions: layoutPositionsFromCsv(resolveDataFile(baseDir, g.layout.file), g.count) } : plan;
+    }),
     randomAccess: config.cell.random_access,
+    uplink: config.cell.uplink,
+    radius: config.cell.radius,
     horizon: config.horizon ?? Infinity,
     warmup: config.warmup,
     eventLimit: config.max_events,
@@ -51,8 +60,14 @@ export function seedFor(config: ExperimentConfig, point: number, replication: nu
   return replicationSeed(config.seed, config.common_random_numbers ? null : point, replication);
 }
 
-export function runReplication(config: ExperimentConfig, point: number, replication: number, seed = seedFor(config, point, replication)): ReplicationRecord {
-  const plan = cellPlan(config);
+export function runReplication(
+  config: ExperimentConfig,
+  point: number,
+  replication: number,
+  seed = seedFor(config, point, replication),
+  baseDir = process.cwd(),
+): ReplicationRecord {
+  const plan = cellPlan(config, baseDir);
   const cell = new Cell(plan, new StreamSet(seed));
   const outcome = cell.run();
   if (outcome.stopReason === 'event-limit') {
@@ -64,7 +79,7 @@ export function runReplication(config: ExperimentConfig, point: number, replicat
     );
   }
   const groups = new Map<string, Tally>();
-  plan.groups.forEach((g, i) => groups.set(g.name, groupTally(outcome.ledger, i, outcome.open)));
+  plan.groups.forEach((g, i) => groups.set(g.name, groupTally(outcome.ledger, i, outcome.open, g.count, outcome.ages[i] as AgeSummary)));
   const ledger = outcome.ledger;
   const occasionsCounted = ledger.firstActiveOccasion < 0 ? 0 : ledger.lastActiveOccasion - ledger.firstActiveOccasion + 1;
   const values = computeMetrics(cellTally([...groups.values()]), groups, {
@@ -77,6 +92,11 @@ export function runReplication(config: ExperimentConfig, point: number, replicat
     barring: plan.randomAccess.barring !== undefined,
     anyDeadline: plan.groups.some((g) => Number.isFinite(g.deadline)),
     events: outcome.events,
+    power: config.cell.energy,
+    grants: plan.groups.some((g) => g.access.policy !== 'contention'),
+    predictors: plan.groups.some((g) => g.access.policy === 'predicted-grant'),
+    fallback: plan.groups.some((g) => g.access.policy !== 'contention' && g.access.fallback_after !== undefined),
+    horizon: Number.isFinite(plan.horizon),
   });
   return { point, replication, seed, metrics: values.cell, groups: values.groups };
 }

@@ -6,7 +6,7 @@
 import type { ExperimentConfig } from '../config/schema.js';
 import { relativePrecisionReached } from '../stats/index.js';
 import { summarizePoint, type PointSummary } from './aggregate.js';
-import { planPoints, replicationRule, type PointSpec, type ReplicationRule } from './plan.js';
+import { replicationRule, singlePoint, type PointSpec, type ReplicationRule } from './plan.js';
 import { runReplication, type ReplicationRecord } from './replicate.js';
 
 export type StopCause = 'fixed-count' | 'precision-reached' | 'max-replications';
@@ -25,6 +25,10 @@ export interface ExperimentResult {
 }
 
 export interface RunOptions {
+  /** The points to run (from the loader's sweep expansion); default: the config alone. */
+  readonly points?: readonly PointSpec[];
+  /** Folder that data files (layout CSVs, traces) are relative to; default: the working folder. */
+  readonly baseDir?: string;
   /** Replaces the configured replication count (or stopping rule). */
   readonly replications?: number;
   /** Called after each finished replication (progress, streaming output). */
@@ -33,7 +37,7 @@ export interface RunOptions {
 
 export function runExperiment(config: ExperimentConfig, options: RunOptions = {}): ExperimentResult {
   const rule = replicationRule(config, options.replications);
-  const points = planPoints(config).map((spec) => runPoint(spec, rule, options));
+  const points = (options.points ?? singlePoint(config)).map((spec) => runPoint(spec, rule, options));
   return { config, rule, points };
 }
 
@@ -41,7 +45,7 @@ export function runPoint(spec: PointSpec, rule: ReplicationRule, options: RunOpt
   const level = spec.config.confidence_level;
   const records: ReplicationRecord[] = [];
   const next = (): void => {
-    const record = runReplication(spec.config, spec.index, records.length);
+    const record = runReplication(spec.config, spec.index, records.length, undefined, options.baseDir);
     records.push(record);
     options.onReplication?.(record);
   };

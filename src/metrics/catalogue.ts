@@ -171,6 +171,99 @@ export const metricCatalogue: readonly MetricDefinition[] = [
       return Math.sqrt(Math.max(0, (t.arrivalTimeSquares - t.arrived * mean * mean) / (t.arrived - 1)));
     },
   },
+  {
+    name: 'packets_in_system_mean',
+    unit: 'packets',
+    description: 'Time-average number of packets in the system (buffered, waiting or being sent) over the observation window: L of Little’s law.',
+    scope: 'cell-and-groups',
+    value: (t, c) => ratio(t.backlogArea, c.observationMs),
+  },
+  {
+    name: 'grants_issued',
+    unit: 'grants',
+    description: 'Grants handed out (dynamic grants, and configured-grant opportunities in the window).',
+    scope: 'cell-and-groups',
+    when: (c) => c.grants,
+    value: (t) => t.grantsIssued,
+  },
+  { name: 'grants_used', unit: 'grants', description: 'Grants that carried a packet.', scope: 'cell-and-groups', when: (c) => c.grants, value: (t) => t.grantsUsed },
+  {
+    name: 'grants_wasted',
+    unit: 'grants',
+    description: 'Grants that found no packet waiting (an empty buffer, or a device already transmitting or contending).',
+    scope: 'cell-and-groups',
+    when: (c) => c.grants,
+    value: (t) => t.grantsIssued - t.grantsUsed,
+  },
+  {
+    name: 'grant_efficiency',
+    unit: '1',
+    description: 'Grants used / grants issued.',
+    scope: 'cell-and-groups',
+    when: (c) => c.grants,
+    value: (t) => ratio(t.grantsUsed, t.grantsIssued),
+  },
+  {
+    name: 'fallback_share',
+    unit: '1',
+    description: 'Packets that stopped waiting for a grant and contended instead / packets started.',
+    scope: 'cell-and-groups',
+    when: (c) => c.fallback,
+    value: (t) => ratio(t.fellBack, t.arrived),
+  },
+  {
+    name: 'predictor_precision',
+    unit: '1',
+    description: 'Over grant occasions: flagged devices holding a packet waiting for a grant / flagged devices (false alarms included).',
+    scope: 'cell-and-groups',
+    when: (c) => c.predictors,
+    value: (t) => ratio(t.flaggedWithDataSum, t.flaggedSum),
+  },
+  {
+    name: 'predictor_recall',
+    unit: '1',
+    description: 'Packets whose device was flagged while they waited for a grant / packets that waited for a grant.',
+    scope: 'cell-and-groups',
+    when: (c) => c.predictors,
+    value: (t) => ratio(t.recallFlagged, t.recallPackets),
+  },
+  {
+    name: 'aoi_mean_ms',
+    unit: 'ms',
+    description:
+      'Age of Information: time-average age of the freshest delivered packet, per reporting device from its first delivery, averaged over reporting devices (Kaul, Yates, Gruteser 2012).',
+    scope: 'cell-and-groups',
+    when: (c) => c.horizon,
+    value: (t) => ratio(t.age.ageSum, t.age.reportingDevices),
+  },
+  {
+    name: 'aoi_peak_mean_ms',
+    unit: 'ms',
+    description: 'Peak Age of Information: age just before an update, averaged over updates.',
+    scope: 'cell-and-groups',
+    when: (c) => c.horizon,
+    value: (t) => ratio(t.age.peakSum, t.age.peakCount),
+  },
+  {
+    name: 'energy_per_delivered_packet_mj',
+    unit: 'mJ',
+    description:
+      'Device energy spent on accesses (transmitting, receiving or monitoring, awake idle; failed and dropped attempts included) / packets delivered. Sleep is not included.',
+    scope: 'cell-and-groups',
+    value: (t, c) => ratio((t.txMs * c.power.transmit_mw + t.rxMs * c.power.receive_mw + t.idleMs * c.power.idle_mw) / 1000, t.completed),
+  },
+  {
+    name: 'device_power_mean_mw',
+    unit: 'mW',
+    description: 'Mean power per device over the observation window: access energy plus sleep the rest of the time.',
+    scope: 'cell-and-groups',
+    value: (t, c) => {
+      const awake = t.txMs + t.rxMs + t.idleMs;
+      const energy = t.txMs * c.power.transmit_mw + t.rxMs * c.power.receive_mw + t.idleMs * c.power.idle_mw;
+      const asleep = Math.max(0, t.devices * c.observationMs - awake);
+      return ratio(energy + asleep * c.power.sleep_mw, t.devices * c.observationMs);
+    },
+  },
   { name: 'accesses_started', unit: 'packets', description: 'Packets that arrived in the observation window.', scope: 'cell-and-groups', value: (t) => t.arrived },
   { name: 'accesses_completed', unit: 'packets', description: 'Packets delivered.', scope: 'cell-and-groups', value: (t) => t.completed },
   { name: 'accesses_dropped', unit: 'packets', description: 'Packets given up.', scope: 'cell-and-groups', value: (t) => t.dropped },
@@ -193,8 +286,8 @@ export function metricDefinition(name: string): MetricDefinition | undefined {
 export const metricNames: readonly string[] = metricCatalogue.map((m) => m.name);
 
 /** The metrics an experiment reports, in catalogue order. */
-export function activeMetrics(c: Pick<CellContext, 'barring' | 'anyDeadline'> & Partial<CellContext>): MetricDefinition[] {
-  return metricCatalogue.filter((m) => m.when === undefined || m.when(c as CellContext));
+export function activeMetrics(c: CellContext): MetricDefinition[] {
+  return metricCatalogue.filter((m) => m.when === undefined || m.when(c));
 }
 
 export interface MetricValues {

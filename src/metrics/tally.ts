@@ -4,6 +4,7 @@
  */
 import { LogLinearHistogram } from '../stats/index.js';
 import type { Ledger } from './ledger.js';
+import type { AgeSummary } from './age.js';
 
 export interface Tally {
   readonly arrived: number;
@@ -28,6 +29,28 @@ export interface Tally {
   readonly barringDelaySum: number;
   readonly preambleTx: number;
   readonly collidedTx: number;
+  readonly devices: number;
+  readonly grantsIssued: number;
+  readonly grantsUsed: number;
+  readonly fellBack: number;
+  readonly recallPackets: number;
+  readonly recallFlagged: number;
+  readonly flaggedSum: number;
+  readonly flaggedWithDataSum: number;
+  readonly txMs: number;
+  readonly rxMs: number;
+  readonly idleMs: number;
+  /** Integral over the observation window of the number of packets in the system (packet·ms). */
+  readonly backlogArea: number;
+  readonly age: AgeSummary;
+}
+
+/** Device power in each state, mW (cell.energy). */
+export interface PowerModel {
+  readonly transmit_mw: number;
+  readonly receive_mw: number;
+  readonly idle_mw: number;
+  readonly sleep_mw: number;
 }
 
 export interface CellContext {
@@ -43,6 +66,12 @@ export interface CellContext {
   readonly anyDeadline: boolean;
   /** Kernel events processed in the replication. */
   readonly events: number;
+  readonly power: PowerModel;
+  /** Some group uses grants / a predictor / contention fallback; the run has a horizon. */
+  readonly grants: boolean;
+  readonly predictors: boolean;
+  readonly fallback: boolean;
+  readonly horizon: boolean;
 }
 
 export interface InProgressCounts {
@@ -50,7 +79,7 @@ export interface InProgressCounts {
   readonly inProgressLate: Float64Array;
 }
 
-export function groupTally(ledger: Ledger, g: number, open: InProgressCounts): Tally {
+export function groupTally(ledger: Ledger, g: number, open: InProgressCounts, devices: number, age: AgeSummary): Tally {
   const width = ledger.maxTx + 1;
   return {
     arrived: ledger.arrived[g] as number,
@@ -73,6 +102,19 @@ export function groupTally(ledger: Ledger, g: number, open: InProgressCounts): T
     barringDelaySum: ledger.barringDelaySum[g] as number,
     preambleTx: ledger.preambleTx[g] as number,
     collidedTx: ledger.collidedTx[g] as number,
+    devices,
+    grantsIssued: ledger.grantsIssued[g] as number,
+    grantsUsed: ledger.grantsUsed[g] as number,
+    fellBack: ledger.fellBackCount[g] as number,
+    recallPackets: ledger.recallPackets[g] as number,
+    recallFlagged: ledger.recallFlagged[g] as number,
+    flaggedSum: ledger.flaggedSum[g] as number,
+    flaggedWithDataSum: ledger.flaggedWithDataSum[g] as number,
+    txMs: ledger.txMs[g] as number,
+    rxMs: ledger.rxMs[g] as number,
+    idleMs: ledger.idleMs[g] as number,
+    backlogArea: ledger.inSystemArea[g] as number,
+    age,
   };
 }
 
@@ -108,5 +150,23 @@ export function cellTally(groups: readonly Tally[]): Tally {
     barringDelaySum: sum((t) => t.barringDelaySum),
     preambleTx: sum((t) => t.preambleTx),
     collidedTx: sum((t) => t.collidedTx),
+    devices: sum((t) => t.devices),
+    grantsIssued: sum((t) => t.grantsIssued),
+    grantsUsed: sum((t) => t.grantsUsed),
+    fellBack: sum((t) => t.fellBack),
+    recallPackets: sum((t) => t.recallPackets),
+    recallFlagged: sum((t) => t.recallFlagged),
+    flaggedSum: sum((t) => t.flaggedSum),
+    flaggedWithDataSum: sum((t) => t.flaggedWithDataSum),
+    txMs: sum((t) => t.txMs),
+    rxMs: sum((t) => t.rxMs),
+    idleMs: sum((t) => t.idleMs),
+    backlogArea: sum((t) => t.backlogArea),
+    age: {
+      ageSum: sum((t) => t.age.ageSum),
+      reportingDevices: sum((t) => t.age.reportingDevices),
+      peakSum: sum((t) => t.age.peakSum),
+      peakCount: sum((t) => t.age.peakCount),
+    },
   };
 }

@@ -2,6 +2,7 @@
 import type { ExperimentResult, PointResult } from '../experiment/run.js';
 import type { Summary } from '../stats/index.js';
 import { withInterval } from './numbers.js';
+import { comparisonTable } from './compare.js';
 
 /** Metrics shown per group (all metrics are in summary.json). */
 const GROUP_METRICS = [
@@ -38,6 +39,7 @@ function describeParameters(p: PointResult): string {
 }
 
 export function resultTable(result: ExperimentResult): string {
+  if (result.points.length > 1) return comparisonTable(result, result.config.report.compare_metrics, result.config.report.compare_groups);
   const level = result.config.confidence_level;
   const out: string[] = [];
   for (const p of result.points) {

@@ -8,6 +8,18 @@
  */
 import type { TrafficEnv, TrafficSource } from './model.js';
 
+/**
+ * Which devices of a group send at all: every one when `share` is 1 (no draws), otherwise each
+ * independently with probability `share` (stream "active"). Returns group device indices.
+ */
+export function activeDevices(env: TrafficEnv, share: number): Int32Array | undefined {
+  if (share >= 1) return undefined;
+  const s = env.stream('active');
+  const chosen: number[] = [];
+  for (let i = 0; i < env.deviceCount; i++) if (s.next() < share) chosen.push(i);
+  return Int32Array.from(chosen);
+}
+
 /** Indices 0 … n−1 ordered by `times` (ties keep index order). Times must lie in [lo, hi]. */
 export function orderByTime(times: Float64Array, lo: number, hi: number): Int32Array {
   const n = times.length;
@@ -51,9 +63,10 @@ export function orderByTime(times: Float64Array, lo: number, hi: number): Int32A
 
 /**
  * A source that delivers one packet per device at the given times (ms, one entry per device of the
- * group, in device order). `lo`/`hi` bound the times (for the bucket sort).
+ * group, in device order — or, with `devices`, one entry per listed group device index). `lo`/`hi`
+ * bound the times (for the bucket sort).
  */
-export function onceEachSource(env: TrafficEnv, times: Float64Array, lo: number, hi: number): TrafficSource {
+export function onceEachSource(env: TrafficEnv, times: Float64Array, lo: number, hi: number, devices?: Int32Array): TrafficSource {
   const order = orderByTime(times, lo, hi);
   let cursor = 0;
   const first = env.firstDevice;
@@ -61,7 +74,7 @@ export function onceEachSource(env: TrafficEnv, times: Float64Array, lo: number,
     const index = order[cursor] as number;
     cursor++;
     if (cursor < order.length) env.sim.at(times[order[cursor] as number] as number, kind, 0);
-    env.packetArrives(first + index);
+    env.packetArrives(first + (devices === undefined ? index : (devices[index] as number)));
   });
   return {
     start(): void {

@@ -11,7 +11,9 @@ export function configFrom(yaml: string, sets: readonly string[] = []): Experime
 }
 
 export function runYaml(yaml: string, sets: readonly string[] = [], options: RunOptions = {}): ExperimentResult {
-  return runExperiment(configFrom(yaml, sets), options);
+  const loaded = loadExperimentText('test.yaml', yaml, sets);
+  if (!loaded.ok) throw new Error(loaded.problems.map((p) => `${p.path}: ${p.message}`).join('\n'));
+  return runExperiment(loaded.config, { points: loaded.points, ...options });
 }
 
 export function metricOf(result: ExperimentResult, name: string, group?: string): Summary {

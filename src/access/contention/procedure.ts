@@ -12,6 +12,7 @@
 import type { Simulator } from '../../kernel/index.js';
 import type { Stream, StreamSet } from '../../random/index.js';
 import type { Ledger } from '../../metrics/ledger.js';
+import type { UplinkPool } from '../grants/pool.js';
 import { Barring } from './barring.js';
 import type { RandomAccessParams } from './params.js';
 
@@ -23,8 +24,8 @@ export interface ContentionHost {
   readonly groupOf: Uint16Array;
   /** Arrival time (ms) of the packet each device is currently trying to send. */
   readonly holArrival: Float64Array;
-  /** The access completed at `t` (Msg4 received). */
-  delivered(device: number, t: number, preambleTx: number, firstPreamble: number): void;
+  /** The access completed at `t` (Msg4 received); `seenStart` is the occasion of the successful preamble. */
+  delivered(device: number, t: number, preambleTx: number, firstPreamble: number, seenStart: number): void;
   /** The access was dropped at `t` (preamble transmission limit reached). */
   dropped(device: number, t: number): void;
 }
@@ -45,6 +46,11 @@ export class ContentionProcedure {
   private readonly nextInBucket: Int32Array;
   private readonly nextOnPreamble: Int32Array;
   private readonly firstPreamble: Float64Array;
+  /** Occasion of the device's current attempt, and since when it has been waiting awake for it. */
+  private readonly attemptOccasion: Float64Array;
+  private readonly idleFrom: Float64Array;
+  /** When Msg3 shares the uplink pool with grants (cell.uplink.msg3: shared), the pool; else null. */
+  private readonly sharedPool: UplinkPool | null;
 
   // Per occasion: a ring of bucket heads indexed by occasion number.
   private readonly bucketHead: Int32Array;
@@ -70,7 +76,7 @@ export class ContentionProcedure {
   private readonly answersPerOccasion: number;
   private readonly answersPerSubframe: number;
 
-  constructor(params: RandomAccessParams, host: ContentionHost, streams: StreamSet, deviceCount: number) {
+  constructor(params: RandomAccessParams, host: ContentionHost, streams: StreamSet, deviceCount: number, sharedPool: UplinkPool | null = null) {
     this.p = params;
     this.host = host;
     this.sim = host.sim;
@@ -80,6 +86,9 @@ export class ContentionProcedure {
     this.nextInBucket = new Int32Array(deviceCount);
     this.nextOnPreamble = new Int32Array(deviceCount);
     this.firstPreamble = new Float64Array(deviceCount);
+    this.attemptOccasion = new Float64Array(deviceCount);
+    this.idleFrom = new Float64Array(deviceCount);
+    this.sharedPool = sharedPool;
 
     // Bucket lookahead: a failed attempt joins the occasion after its backoff, a new one the next occasion.
     const lookahead = Math.ceil(params.backoff_indicator / params.occasion_period) + 3;
@@ -114,6 +123,7 @@ export class ContentionProcedure {
     const now = this.sim.now;
     this.attempt[device] = 1;
     this.firstPreamble[device] = Number.NaN;
+    this.idleFrom[device] = now;
     let ready = now;
     if (this.barring !== null) {
       ready = this.barring.passTime(now);
@@ -172,6 +182,7 @@ export class ContentionProcedure {
       this.nextOnPreamble[device] = heads[preamble] as number;
       heads[preamble] = device;
       if (this.attempt[device] === 1) this.firstPreamble[device] = t;
+      this.attemptOccasion[device] = t;
       device = next;
     }
 
@@ -192,11 +203,12 @@ export class ContentionProcedure {
         singletons++;
         if (counted) this.ledger.preamble(this.host.groupOf[first] as number, false);
         const detected = this.detectionStream.next() < (this.detectProbability[this.attempt[first] as number] as number);
-        if (detected && answered < this.answersPerOccasion) {
-          const responseAt = t + this.p.response_delay + Math.floor(answered / this.answersPerSubframe);
+        const responseAt = t + this.p.response_delay + Math.floor(answered / this.answersPerSubframe);
+        if (detected && answered < this.answersPerOccasion && this.msg3ResourceFree(responseAt)) {
           answered++;
-          this.resolveLoneAttempt(first, responseAt);
+          this.resolveLoneAttempt(first, t, responseAt);
         } else {
+          this.spend(first, t, 1, windowEnd - t - 1);
           this.endAttempt(first, windowEnd, FAILURE);
         }
       } else {
@@ -222,34 +234,68 @@ export class ContentionProcedure {
     }
     let failAt = windowEnd;
     let used = 0;
-    if (detected && answered < this.answersPerOccasion) {
-      const responseAt = t + this.p.response_delay + Math.floor(answered / this.answersPerSubframe);
+    let tx = 1;
+    let rx = windowEnd - t - 1;
+    const responseAt = t + this.p.response_delay + Math.floor(answered / this.answersPerSubframe);
+    if (detected && answered < this.answersPerOccasion && this.msg3ResourceFree(responseAt)) {
       const msg3 = this.p.msg3;
-      failAt = responseAt + this.p.msg3_delay + (msg3.max_transmissions - 1) * msg3.round_trip + this.p.contention_resolution_timer;
+      const firstMsg3 = responseAt + this.p.msg3_delay;
+      failAt = firstMsg3 + (msg3.max_transmissions - 1) * msg3.round_trip + this.p.contention_resolution_timer;
+      this.bookMsg3(firstMsg3, msg3.max_transmissions);
       used = 1;
+      tx = 1 + msg3.max_transmissions;
+      rx = responseAt - t + (failAt - firstMsg3) - msg3.max_transmissions;
     }
-    for (let d = first; d !== NONE; d = this.nextOnPreamble[d] as number) this.endAttempt(d, failAt, FAILURE);
+    for (let d = first; d !== NONE; d = this.nextOnPreamble[d] as number) {
+      this.spend(d, t, tx, rx);
+      this.endAttempt(d, failAt, FAILURE);
+    }
     return used;
   }
 
   /** A lone, answered device: Msg3 with HARQ, then Msg4 with HARQ, under the contention-resolution timer. */
-  private resolveLoneAttempt(device: number, responseAt: number): void {
+  private resolveLoneAttempt(device: number, t: number, responseAt: number): void {
     const { msg3, msg4 } = this.p;
     const timer = this.p.contention_resolution_timer;
     const firstMsg3 = responseAt + this.p.msg3_delay;
     const n3 = this.transmissionsNeeded(msg3.error_probability, msg3.max_transmissions);
+    const sent3 = Math.min(n3, msg3.max_transmissions);
+    this.bookMsg3(firstMsg3, sent3);
+    let end: number;
+    let outcome = FAILURE;
     if (n3 > msg3.max_transmissions) {
-      this.endAttempt(device, firstMsg3 + (msg3.max_transmissions - 1) * msg3.round_trip + timer, FAILURE);
-      return;
+      end = firstMsg3 + (msg3.max_transmissions - 1) * msg3.round_trip + timer;
+    } else {
+      const decodedMsg3 = firstMsg3 + (n3 - 1) * msg3.round_trip;
+      const n4 = this.transmissionsNeeded(msg4.error_probability, msg4.max_transmissions);
+      const received = decodedMsg3 + this.p.msg4_delay + (n4 - 1) * msg4.round_trip;
+      if (n4 > msg4.max_transmissions || received > decodedMsg3 + timer) {
+        end = decodedMsg3 + timer;
+      } else {
+        end = received;
+        outcome = SUCCESS;
+      }
     }
-    const decodedMsg3 = firstMsg3 + (n3 - 1) * msg3.round_trip;
-    const n4 = this.transmissionsNeeded(msg4.error_probability, msg4.max_transmissions);
-    const received = decodedMsg3 + this.p.msg4_delay + (n4 - 1) * msg4.round_trip;
-    if (n4 > msg4.max_transmissions || received > decodedMsg3 + timer) {
-      this.endAttempt(device, decodedMsg3 + timer, FAILURE);
-      return;
-    }
-    this.endAttempt(device, received, SUCCESS);
+    // Energy: the preamble and each Msg3 transmit for 1 ms; the device listens from the preamble to the
+    // response and from the first Msg3 to the end of the attempt (minus its Msg3 transmissions).
+    this.spend(device, t, 1 + sent3, responseAt - t + (end - firstMsg3) - sent3);
+    this.endAttempt(device, end, outcome);
+  }
+
+  /** With a shared uplink pool, a response can only be sent when its Msg3 subframe has a free unit. */
+  private msg3ResourceFree(responseAt: number): boolean {
+    return this.sharedPool === null || this.sharedPool.freeAt(responseAt + this.p.msg3_delay) > 0;
+  }
+
+  private bookMsg3(firstMsg3: number, transmissions: number): void {
+    const pool = this.sharedPool;
+    if (pool === null) return;
+    for (let k = 0; k < transmissions; k++) pool.book(firstMsg3 + k * this.p.msg3.round_trip);
+  }
+
+  /** Energy of one attempt: `tx` and `rx` ms, and the idle wait since the device was last active. */
+  private spend(device: number, t: number, tx: number, rx: number): void {
+    this.ledger.energy(this.host.groupOf[device] as number, this.host.holArrival[device] as number, tx, rx, t - (this.idleFrom[device] as number));
   }
 
   /** Transmissions until the first success; max + 1 when all `max` fail. */
@@ -268,9 +314,10 @@ export class ContentionProcedure {
   private attemptEnded(device: number, t: number): void {
     const k = this.attempt[device] as number;
     if (this.outcome[device] === SUCCESS) {
-      this.host.delivered(device, t, k, this.firstPreamble[device] as number);
+      this.host.delivered(device, t, k, this.firstPreamble[device] as number, this.attemptOccasion[device] as number);
       return;
     }
+    this.idleFrom[device] = t;
     if (k >= this.p.preamble_trans_max) {
       this.host.dropped(device, t);
       return;
