@@ -106,7 +106,8 @@ export class Cell implements ContentionHost, PolicyHost {
       ra.msg3.max_transmissions * ra.msg3.round_trip +
       ra.occasion_period;
     const pool = new UplinkPool(plan.uplink.capacity, poolHorizon);
-    const contention = new ContentionProcedure(ra, this, streams, this.deviceCount, plan.uplink.msg3 === 'shared' ? pool : null);
+    const shared = plan.uplink.msg3 === 'shared';
+    const contention = new ContentionProcedure(ra, this, streams, this.deviceCount, shared ? pool : null, shared ? plan.uplink.reserved_for_grants : 0);
 
     const dynamic: DynamicGrants[] = [];
     let first = 0;
@@ -150,6 +151,7 @@ export class Cell implements ContentionHost, PolicyHost {
       this.sources.push(model.create(group.traffic, env));
     });
     this.scheduler = new GrantScheduler(this.sim, plan.uplink, pool, dynamic, this.configured);
+    if (this.configured.length > 0) contention.reservedAt = (u) => this.scheduler.reservedAt(u);
     for (const source of this.sources) source.start();
     this.scheduler.start();
   }

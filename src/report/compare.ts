@@ -34,7 +34,9 @@ function table(title: string, rows: Array<{ label: string; metrics: Record<strin
 export function comparisonTable(result: ExperimentResult, metrics: readonly string[] = DEFAULT_COMPARE_METRICS, groups?: readonly string[]): string {
   const level = Math.round(result.config.confidence_level * 1000) / 10;
   const points = result.points;
-  const chosenGroups = groups ?? Object.entries(result.config.groups).filter(([, g]) => g.deadline !== undefined).map(([name]) => name);
+  const all = Object.entries(result.config.groups);
+  // With a single group its table would repeat the cell's.
+  const chosenGroups = groups ?? (all.length > 1 ? all.filter(([, g]) => g.deadline !== undefined).map(([name]) => name) : []);
   const out = [
     ...table(
       `comparison over ${points.length} points · mean ± ${level} % half-width · cell`,

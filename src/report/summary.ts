@@ -31,6 +31,7 @@ function pointDocument(p: PointResult): Record<string, unknown> {
   for (const [name, g] of Object.entries(p.summary.groups)) groups[name] = { metrics: metricMap(g.metrics) };
   return {
     index: p.spec.index,
+    label: p.spec.label,
     parameters: p.spec.parameters,
     replications: p.records.length,
     stopped_by: p.stopCause,

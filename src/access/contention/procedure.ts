@@ -51,6 +51,10 @@ export class ContentionProcedure {
   private readonly idleFrom: Float64Array;
   /** When Msg3 shares the uplink pool with grants (cell.uplink.msg3: shared), the pool; else null. */
   private readonly sharedPool: UplinkPool | null;
+  /** Units per subframe Msg3 may not use (kept for grants). */
+  private readonly keptForGrants: number;
+  /** Units reserved by configured grants on subframe u (set by the cell once its scheduler exists). */
+  reservedAt: (u: number) => number = () => 0;
 
   // Per occasion: a ring of bucket heads indexed by occasion number.
   private readonly bucketHead: Int32Array;
@@ -76,7 +80,14 @@ export class ContentionProcedure {
   private readonly answersPerOccasion: number;
   private readonly answersPerSubframe: number;
 
-  constructor(params: RandomAccessParams, host: ContentionHost, streams: StreamSet, deviceCount: number, sharedPool: UplinkPool | null = null) {
+  constructor(
+    params: RandomAccessParams,
+    host: ContentionHost,
+    streams: StreamSet,
+    deviceCount: number,
+    sharedPool: UplinkPool | null = null,
+    keptForGrants = 0,
+  ) {
     this.p = params;
     this.host = host;
     this.sim = host.sim;
@@ -89,6 +100,7 @@ export class ContentionProcedure {
     this.attemptOccasion = new Float64Array(deviceCount);
     this.idleFrom = new Float64Array(deviceCount);
     this.sharedPool = sharedPool;
+    this.keptForGrants = keptForGrants;
 
     // Bucket lookahead: a failed attempt joins the occasion after its backoff, a new one the next occasion.
     const lookahead = Math.ceil(params.backoff_indicator / params.occasion_period) + 3;
@@ -284,7 +296,9 @@ export class ContentionProcedure {
 
   /** With a shared uplink pool, a response can only be sent when its Msg3 subframe has a free unit. */
   private msg3ResourceFree(responseAt: number): boolean {
-    return this.sharedPool === null || this.sharedPool.freeAt(responseAt + this.p.msg3_delay) > 0;
+    if (this.sharedPool === null) return true;
+    const u = responseAt + this.p.msg3_delay;
+    return this.sharedPool.freeAt(u, this.keptForGrants + this.reservedAt(u)) > 0;
   }
 
   private bookMsg3(firstMsg3: number, transmissions: number): void {

@@ -35,6 +35,12 @@ export const uplinkSchema = z
       })
       .prefault({})
       .describe('HARQ of granted transmissions (same defaults as Msg3).'),
+    reserved_for_grants: z
+      .number()
+      .int()
+      .min(0)
+      .default(0)
+      .describe('With msg3: shared, units of each subframe that Msg3 may not use (kept for grants): the price contending devices pay for grant capacity.'),
     msg3: z
       .enum(['separate', 'shared'])
       .default('separate')
@@ -42,6 +48,7 @@ export const uplinkSchema = z
         'separate: Msg3 of the contention procedure uses its own resources (limited only by the response capacity); shared: every Msg3 transmission also takes one unit of `capacity`, so resources reserved for grants cost the contending devices.',
       ),
   })
+  .refine((u) => u.reserved_for_grants <= u.capacity, { message: 'reserved_for_grants cannot exceed capacity', path: ['reserved_for_grants'] })
   .describe('Scheduled uplink resources: grant occasions and their capacity.');
 
 export type UplinkParams = z.output<typeof uplinkSchema>;
