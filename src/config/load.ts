@@ -7,6 +7,7 @@ import { dirname, resolve } from 'node:path';
 import { checkDataFiles } from './data-files.js';
 import { expandSweep, type PointSpec } from './sweep.js';
 import { applyOverrides } from './overrides.js';
+import { applyVary } from './vary.js';
 import type { Problem } from './problems.js';
 import { DEFAULT_REPLICATIONS, experimentSchema, type ExperimentConfig } from './schema.js';
 import { validateSource } from './validate.js';
@@ -26,24 +27,34 @@ export type LoadResult =
   | ({ readonly ok: true } & LoadedExperiment)
   | { readonly ok: false; readonly problems: readonly Problem[]; readonly sources: ReadonlyMap<string, string> };
 
-function finish(parsed: { ok: true; source: YamlSource } | { ok: false; problems: Problem[] }, sets: readonly string[], baseDir: string): LoadResult {
+/** Terminal changes to an experiment: `--set` items, `--vary` axes and `--combine`. */
+export interface TerminalEdits {
+  readonly sets?: readonly string[];
+  readonly vary?: readonly string[];
+  readonly combine?: 'grid' | 'zip';
+}
+
+function finish(parsed: { ok: true; source: YamlSource } | { ok: false; problems: Problem[] }, edits: TerminalEdits, baseDir: string): LoadResult {
   if (!parsed.ok) return { ok: false, problems: parsed.problems, sources: new Map() };
   const sources = new Map([[parsed.source.file, parsed.source.text]]);
-  const overridden = applyOverrides(parsed.source, sets);
+  const overridden = applyOverrides(parsed.source, edits.sets ?? []);
   if (!overridden.ok) return { ok: false, problems: overridden.problems, sources };
-  const validated = validateSource(overridden.source, experimentSchema, overridden.overridden);
+  const varied = applyVary(overridden.source, edits.vary ?? [], edits.combine);
+  if (!varied.ok) return { ok: false, problems: varied.problems, sources };
+  const validated = validateSource(varied.source, experimentSchema, overridden.overridden);
   if (!validated.ok) return { ok: false, problems: validated.problems, sources };
   const config = deepFreeze(validated.value);
-  const expanded = expandSweep(overridden.source, config, overridden.overridden);
+  const expanded = expandSweep(varied.source, config, overridden.overridden);
   if (!expanded.ok) return { ok: false, problems: expanded.problems, sources };
   const fileProblems = checkDataFiles([config, ...expanded.points.map((p) => p.config)], baseDir);
   if (fileProblems.length > 0) return { ok: false, problems: fileProblems, sources };
   const points = expanded.points.map((p) => ({ ...p, config: deepFreeze(p.config) }));
-  return { ok: true, config, points, source: overridden.source, baseDir };
+  return { ok: true, config, points, source: varied.source, baseDir };
 }
 
-export function loadExperimentFile(file: string, sets: readonly string[] = []): LoadResult {
-  const result = finish(readYamlSource(file), sets, dirname(resolve(file)));
+export function loadExperimentFile(file: string, edits: readonly string[] | TerminalEdits = []): LoadResult {
+  const terminal: TerminalEdits = Array.isArray(edits) ? { sets: edits as readonly string[] } : (edits as TerminalEdits);
+  const result = finish(readYamlSource(file), terminal, dirname(resolve(file)));
   if (result.ok || result.sources.size > 0) return result;
   // A syntax error: keep the text for the caret excerpt.
   let text: string | undefined;
@@ -56,8 +67,8 @@ export function loadExperimentFile(file: string, sets: readonly string[] = []): 
 }
 
 /** Loads YAML text; data files are relative to `baseDir` (default: the working folder). */
-export function loadExperimentText(file: string, text: string, sets: readonly string[] = [], baseDir = process.cwd()): LoadResult {
-  return finish(parseYamlSource(file, text), sets, baseDir);
+export function loadExperimentText(file: string, text: string, sets: readonly string[] = [], baseDir = process.cwd(), edits: Omit<TerminalEdits, 'sets'> = {}): LoadResult {
+  return finish(parseYamlSource(file, text), { ...edits, sets }, baseDir);
 }
 
 /** The resolved config in its YAML input form (durations with units). */

@@ -101,6 +101,11 @@ export const experimentSchema = z
           .array(z.string())
           .optional()
           .describe('Groups that get their own comparison table (default: the groups with a deadline).'),
+        plot_metrics: z
+          .array(z.enum(metricNames as [string, ...string[]]))
+          .min(1)
+          .optional()
+          .describe('Metrics plotted against the swept parameters (default: success, deadline, delay mean and p95, throughput, collisions, wasted grants, energy, age — those reported).'),
       })
       .prefault({})
       .describe('What the terminal report shows (every metric is always in the files).'),

@@ -96,7 +96,8 @@ export function expandSweep(source: YamlSource, base: ExperimentConfig, overridd
       const axis = axes[a]!;
       doc.setIn(keysFor(doc, axis.path), axis.nodes[v]!.clone());
       parameters[axis.path] = axis.values[v];
-      if (axis.named || !anyNamed) labels.push(axis.labels[v]!);
+      // In a grid every axis names its value; zipped axes move together, so named ones suffice.
+      if (axis.named || !anyNamed || sweep.combine === 'grid') labels.push(axis.labels[v]!);
     });
     const checked = validateSource({ ...source, doc }, experimentSchema, overridden);
     if (!checked.ok) {

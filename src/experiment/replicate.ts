@@ -19,6 +19,17 @@ export interface ReplicationRecord {
   readonly seed: string;
   readonly metrics: MetricValues['cell'];
   readonly groups: MetricValues['groups'];
+  /** Access-delay quantiles (ms) at DELAY_QUANTILE_LEVELS, for the cell and each group (NaN: no delivery). */
+  readonly delayQuantiles: { readonly cell: number[]; readonly groups: Record<string, number[]> };
+}
+
+/** Probabilities at which every replication records its delay quantiles (for CDF plots). */
+export const DELAY_QUANTILE_LEVELS: readonly number[] = [
+  0.01, 0.025, 0.05, 0.1, 0.15, 0.2, 0.25, 0.3, 0.35, 0.4, 0.45, 0.5, 0.55, 0.6, 0.65, 0.7, 0.75, 0.8, 0.85, 0.9, 0.925, 0.95, 0.975, 0.99,
+];
+
+function quantilesOf(t: Tally): number[] {
+  return DELAY_QUANTILE_LEVELS.map((q) => t.delay.quantile(q));
 }
 
 /** A replication that could not finish, with the coordinates to replay it. */
@@ -82,7 +93,8 @@ export function runReplication(
   plan.groups.forEach((g, i) => groups.set(g.name, groupTally(outcome.ledger, i, outcome.open, g.count, outcome.ages[i] as AgeSummary)));
   const ledger = outcome.ledger;
   const occasionsCounted = ledger.firstActiveOccasion < 0 ? 0 : ledger.lastActiveOccasion - ledger.firstActiveOccasion + 1;
-  const values = computeMetrics(cellTally([...groups.values()]), groups, {
+  const whole = cellTally([...groups.values()]);
+  const values = computeMetrics(whole, groups, {
     observationMs: outcome.endTime - plan.warmup,
     occasionsCounted,
     preambles: plan.randomAccess.preambles,
@@ -98,5 +110,7 @@ export function runReplication(
     fallback: plan.groups.some((g) => g.access.policy !== 'contention' && g.access.fallback_after !== undefined),
     horizon: Number.isFinite(plan.horizon),
   });
-  return { point, replication, seed, metrics: values.cell, groups: values.groups };
+  const groupQuantiles: Record<string, number[]> = {};
+  for (const [name, t] of groups) groupQuantiles[name] = quantilesOf(t);
+  return { point, replication, seed, metrics: values.cell, groups: values.groups, delayQuantiles: { cell: quantilesOf(whole), groups: groupQuantiles } };
 }

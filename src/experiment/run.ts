@@ -62,6 +62,11 @@ export function runPoint(spec: PointSpec, rule: ReplicationRule, options: RunOpt
       }
     }
   }
+  return assemblePoint(spec, records, level, stopCause);
+}
+
+/** A point's result from its records (in replication order). */
+export function assemblePoint(spec: PointSpec, records: readonly ReplicationRecord[], level: number, stopCause: StopCause): PointResult {
   return { spec, records, summary: summarizePoint(records, level), stopCause };
 }
 

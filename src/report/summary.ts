@@ -5,6 +5,7 @@
  */
 import type { ExperimentResult, PointResult } from '../experiment/run.js';
 import type { Summary } from '../stats/index.js';
+import type { QuantileSummary } from '../experiment/aggregate.js';
 import { toolInfo } from '../version.js';
 
 export interface MetricEntry {
@@ -26,9 +27,18 @@ function metricMap(m: Record<string, Summary>): Record<string, MetricEntry> {
   return out;
 }
 
+function quantileDocument(q: QuantileSummary): Record<string, unknown> {
+  return {
+    levels: q.levels,
+    mean: q.quantiles.map((s) => finite(s.mean)),
+    half_width: q.quantiles.map((s) => finite(s.half_width)),
+    n: q.quantiles.map((s) => s.n),
+  };
+}
+
 function pointDocument(p: PointResult): Record<string, unknown> {
   const groups: Record<string, unknown> = {};
-  for (const [name, g] of Object.entries(p.summary.groups)) groups[name] = { metrics: metricMap(g.metrics) };
+  for (const [name, g] of Object.entries(p.summary.groups)) groups[name] = { metrics: metricMap(g.metrics), delay_quantiles_ms: quantileDocument(g.delay) };
   return {
     index: p.spec.index,
     label: p.spec.label,
@@ -36,6 +46,7 @@ function pointDocument(p: PointResult): Record<string, unknown> {
     replications: p.records.length,
     stopped_by: p.stopCause,
     metrics: metricMap(p.summary.metrics),
+    delay_quantiles_ms: quantileDocument(p.summary.delay),
     groups,
   };
 }
