@@ -68,6 +68,8 @@ interface Axis {
   readonly value: (p: PointDoc) => number;
   readonly category: (p: PointDoc) => string;
   readonly categories: string[];
+  /** Whether the categories are labels given in the file (else raw values). */
+  readonly named: boolean;
 }
 
 function asNumber(v: unknown): { value: number; unit: string } | null {
@@ -106,6 +108,7 @@ function axisOf(doc: SummaryDoc, a: number): Axis {
     value: (p) => asNumber(p.parameters[path])?.value ?? Number.NaN,
     category: (p) => labelFor(p.parameters[path]),
     categories: distinct.map((_, i) => spec?.labels?.[i] ?? distinct[i] ?? ''),
+    named: spec?.labels !== undefined,
   };
 }
 
@@ -165,7 +168,7 @@ function againstAxis(doc: SummaryDoc, axis: Axis, metric: string): Figure | null
 function againstTwoAxes(doc: SummaryDoc, x: Axis, by: Axis, metric: string, group?: string): Figure | null {
   const stat = (p: PointDoc): Stat | undefined => (group === undefined ? p.metrics[metric] : p.groups[group]?.metrics[metric]);
   const lines: Series[] = by.categories.map((c) => ({
-    name: c,
+    name: by.named ? c : `${by.label}=${c}`,
     points: doc.points
       .filter((p) => by.category(p) === c)
       .sort((a, b) => x.value(a) - x.value(b))
@@ -284,7 +287,8 @@ export function figuresOf(doc: SummaryDoc, metrics?: readonly string[]): Figure[
     const [a0, a1] = axes;
     if (a0 === undefined) continue;
     if (zipped || axes.length === 1) {
-      const numeric = axes.find((a) => a.numeric);
+      // A numeric axis can carry the x of a line only if no two points share its value.
+      const numeric = axes.find((a) => a.numeric && new Set(doc.points.map(a.value)).size === doc.points.length);
       f = numeric !== undefined ? againstAxis(doc, numeric, metric) : perCategory(doc, null, metric);
     } else if (axes.length === 2 && a1 !== undefined) {
       const x = a0.numeric ? a0 : a1.numeric ? a1 : null;
