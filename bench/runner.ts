@@ -17,7 +17,7 @@ export interface Spread {
 export interface ReplicationTiming {
   readonly replication: number;
   readonly wallMs: number;
-  /** Kernel events (the `events_processed` metric). */
+  /** Kernel events (the record's cost figure). */
   readonly events: number;
   /** Packets that arrived in the observation window (`accesses_started`). */
   readonly packets: number;
@@ -73,7 +73,7 @@ function timeReplication(config: ExperimentConfig, r: number): ReplicationTiming
   return {
     replication: r,
     wallMs,
-    events: metric(record.metrics, 'events_processed'),
+    events: record.events,
     packets: metric(record.metrics, 'accesses_started'),
     simulatedMs: metric(record.metrics, 'observation_time_s') * 1000 + config.warmup,
   };

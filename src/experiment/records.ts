@@ -20,6 +20,7 @@ interface RawRecord {
   point: number;
   replication: number;
   seed: string;
+  events: number;
   metrics: Record<string, number | null>;
   groups: Record<string, Record<string, number | null>>;
   delayQuantiles: { cell: Array<number | null>; groups: Record<string, Array<number | null>> };
@@ -38,6 +39,7 @@ export function recordFromJson(text: string): ReplicationRecord {
     point: raw.point,
     replication: raw.replication,
     seed: raw.seed,
+    events: raw.events,
     metrics: nanMap(raw.metrics),
     groups,
     delayQuantiles: { cell: nanList(raw.delayQuantiles.cell), groups: groupQuantiles },

@@ -19,6 +19,8 @@ export interface ReplicationRecord {
   readonly seed: string;
   readonly metrics: MetricValues['cell'];
   readonly groups: MetricValues['groups'];
+  /** Kernel events the replication processed: a cost figure, kept out of the results. */
+  readonly events: number;
   /** Access-delay quantiles (ms) at DELAY_QUANTILE_LEVELS, for the cell and each group (NaN: no delivery). */
   readonly delayQuantiles: { readonly cell: number[]; readonly groups: Record<string, number[]> };
 }
@@ -112,5 +114,5 @@ export function runReplication(
   });
   const groupQuantiles: Record<string, number[]> = {};
   for (const [name, t] of groups) groupQuantiles[name] = quantilesOf(t);
-  return { point, replication, seed, metrics: values.cell, groups: values.groups, delayQuantiles: { cell: quantilesOf(whole), groups: groupQuantiles } };
+  return { point, replication, seed, events: outcome.events, metrics: values.cell, groups: values.groups, delayQuantiles: { cell: quantilesOf(whole), groups: groupQuantiles } };
 }

@@ -90,14 +90,17 @@ export class Simulator {
    * unknown or the subject is not an int32.
    */
   at(time: number, kind: number, subject: number): void {
+    if (!(time >= this.clock) || time === Infinity || !(kind >= 0 && kind < this.handlers.length) || (subject | 0) !== subject) this.rejectEvent(time, kind, subject);
+    this.queue.push(time, kind, subject);
+  }
+
+  /** Throws the RangeError describing why at() refused an event (kept off the hot path). */
+  private rejectEvent(time: number, kind: number, subject: number): never {
     const name = this.kindName(kind);
-    if (!(time >= this.clock) || time === Infinity) {
-      throw new RangeError(`Simulator.at: event '${name}' (kind ${kind}) at time ${time} ms is not a finite time >= now (${this.clock} ms)`);
-    }
     if ((subject | 0) !== subject) {
       throw new RangeError(`Simulator.at: event '${name}' (kind ${kind}) has subject ${subject}, not an int32`);
     }
-    this.queue.push(time, kind, subject);
+    throw new RangeError(`Simulator.at: event '${name}' (kind ${kind}) at time ${time} ms is not a finite time >= now (${this.clock} ms)`);
   }
 
   /** Schedules an event `delay` ms after now; same checks as at(). */

@@ -276,7 +276,6 @@ export const metricCatalogue: readonly MetricDefinition[] = [
   },
   { name: 'observation_time_s', unit: 's', description: 'Length of the observation window.', scope: 'cell', value: (_t, c) => c.observationMs / 1000 },
   { name: 'occasions_counted', unit: 'occasions', description: 'Occasions from the first to the last active one.', scope: 'cell', value: (_t, c) => c.occasionsCounted },
-  { name: 'events_processed', unit: 'events', description: 'Kernel events processed (a cost figure).', scope: 'cell', value: (_t, c) => c.events },
 ];
 
 export function metricDefinition(name: string): MetricDefinition | undefined {

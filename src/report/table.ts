@@ -15,7 +15,7 @@ const GROUP_METRICS = [
 ];
 
 /** Metrics left out of the terminal table (bookkeeping; still in the files). */
-const HIDDEN = new Set(['events_processed', 'occasions_counted', 'observation_time_s', 'arrival_time_mean_ms', 'arrival_time_sd_ms']);
+const HIDDEN = new Set(['occasions_counted', 'observation_time_s', 'arrival_time_mean_ms', 'arrival_time_sd_ms']);
 
 function pad(text: string, width: number, right = false): string {
   return right ? text.padStart(width) : text.padEnd(width);

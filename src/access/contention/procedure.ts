@@ -75,6 +75,30 @@ export class ContentionProcedure {
   private readonly attemptEndKind: number;
   private readonly wakeKind: number;
 
+  /**
+   * Devices whose attempt fails when an occasion's response window ends, per occasion (a ring of
+   * FIFO lists): one kernel event ends them all, in the order their failures were decided — the
+   * order separate events would have had.
+   */
+  private readonly windowHead: Int32Array;
+  private readonly windowTail: Int32Array;
+  private readonly windowMask: number;
+  private readonly nextEnding: Int32Array;
+  private readonly windowEndKind: number;
+
+  // Hot parameters as plain fields (ms or counts).
+  private readonly period: number;
+  private readonly offset: number;
+  private readonly preambles: number;
+  private readonly responseDelay: number;
+  private readonly windowLength: number;
+  private readonly backoffIndicator: number;
+  private readonly maxAttempts: number;
+  private readonly collidedAnswered: boolean;
+  private readonly warmup: number;
+  private readonly groupOf: Uint16Array;
+  private readonly holArrival: Float64Array;
+
   /** P(detected) for a lone preamble at attempt k (index k), 1 − e^(−k) or 1. */
   private readonly detectProbability: Float64Array;
   private readonly answersPerOccasion: number;
@@ -125,7 +149,26 @@ export class ContentionProcedure {
     this.answersPerSubframe = params.answers_per_subframe === 'unlimited' ? Infinity : params.answers_per_subframe;
     this.answersPerOccasion = this.answersPerSubframe * params.response_window;
 
+    this.period = params.occasion_period;
+    this.offset = params.occasion_offset;
+    this.preambles = params.preambles;
+    this.responseDelay = params.response_delay;
+    this.windowLength = params.response_window;
+    this.backoffIndicator = params.backoff_indicator;
+    this.maxAttempts = params.preamble_trans_max;
+    this.collidedAnswered = params.collided_preambles === 'answered';
+    this.warmup = host.ledger.warmup;
+    this.groupOf = host.groupOf;
+    this.holArrival = host.holArrival;
+    let windowRing = 8;
+    while (windowRing * params.occasion_period <= params.response_delay + params.response_window + 2 * params.occasion_period) windowRing *= 2;
+    this.windowHead = new Int32Array(windowRing).fill(NONE);
+    this.windowTail = new Int32Array(windowRing).fill(NONE);
+    this.windowMask = windowRing - 1;
+    this.nextEnding = new Int32Array(deviceCount);
+
     this.occasionKind = this.sim.defineEvent('contention/occasion', (index, t) => this.resolveOccasion(index, t));
+    this.windowEndKind = this.sim.defineEvent('contention/window-end', (index, t) => this.windowEnded(index, t));
     this.attemptEndKind = this.sim.defineEvent('contention/attempt-end', (device, t) => this.attemptEnded(device, t));
     this.wakeKind = this.sim.defineEvent('contention/wake', (device, t) => this.join(device, t));
   }
@@ -146,7 +189,7 @@ export class ContentionProcedure {
 
   /** Time (ms) of occasion number `index`. */
   occasionTime(index: number): number {
-    return this.p.occasion_offset + index * this.p.occasion_period;
+    return this.offset + index * this.period;
   }
 
   /** Puts the device in the bucket of the first occasion at or after `t`, now or via a wake-up event. */
@@ -161,7 +204,7 @@ export class ContentionProcedure {
   }
 
   private firstOccasionAtOrAfter(t: number): number {
-    let index = Math.ceil((t - this.p.occasion_offset) / this.p.occasion_period);
+    let index = Math.ceil((t - this.offset) / this.period);
     if (index < 0) index = 0;
     if (index <= this.lastResolved) index = this.lastResolved + 1;
     return index;
@@ -181,8 +224,8 @@ export class ContentionProcedure {
     const slot = index & this.ringMask;
     let device = this.bucketHead[slot] as number;
     this.bucketHead[slot] = NONE;
-    const m = this.p.preambles;
-    const counted = t >= this.ledger.warmup;
+    const m = this.preambles;
+    const counted = t >= this.warmup;
     const heads = this.preambleHead;
     const counts = this.preambleCount;
     const choose = this.preambleStream;
@@ -203,7 +246,7 @@ export class ContentionProcedure {
     let answered = 0;
     let used = 0;
     let singletons = 0;
-    const windowEnd = t + this.p.response_delay + this.p.response_window;
+    const windowEnd = t + this.responseDelay + this.windowLength;
     for (let preamble = 0; preamble < m; preamble++) {
       const n = counts[preamble] as number;
       if (n === 0) continue;
@@ -213,18 +256,18 @@ export class ContentionProcedure {
       used++;
       if (n === 1) {
         singletons++;
-        if (counted) this.ledger.preamble(this.host.groupOf[first] as number, false);
+        if (counted) this.ledger.preamble(this.groupOf[first] as number, false);
         const detected = this.detectionStream.next() < (this.detectProbability[this.attempt[first] as number] as number);
-        const responseAt = t + this.p.response_delay + Math.floor(answered / this.answersPerSubframe);
+        const responseAt = t + this.responseDelay + Math.floor(answered / this.answersPerSubframe);
         if (detected && answered < this.answersPerOccasion && this.msg3ResourceFree(responseAt)) {
           answered++;
           this.resolveLoneAttempt(first, t, responseAt);
         } else {
           this.spend(first, t, 1, windowEnd - t - 1);
-          this.endAttempt(first, windowEnd, FAILURE);
+          this.failAtWindowEnd(first, index, windowEnd);
         }
       } else {
-        answered += this.resolveCollision(first, t, windowEnd, answered, counted);
+        answered += this.resolveCollision(first, t, index, windowEnd, answered, counted);
       }
     }
     if (counted) this.ledger.occasion(index, used, singletons);
@@ -236,11 +279,11 @@ export class ContentionProcedure {
    * and all its devices send Msg3 on the same grant, which is never decoded; each fails when the
    * contention-resolution timer expires after its last Msg3 transmission. Returns responses used (0/1).
    */
-  private resolveCollision(first: number, t: number, windowEnd: number, answered: number, counted: boolean): number {
+  private resolveCollision(first: number, t: number, index: number, windowEnd: number, answered: number, counted: boolean): number {
     let detected = false;
     for (let d = first; d !== NONE; d = this.nextOnPreamble[d] as number) {
-      if (counted) this.ledger.preamble(this.host.groupOf[d] as number, true);
-      if (this.p.collided_preambles === 'answered') {
+      if (counted) this.ledger.preamble(this.groupOf[d] as number, true);
+      if (this.collidedAnswered) {
         if (this.detectionStream.next() < (this.detectProbability[this.attempt[d] as number] as number)) detected = true;
       }
     }
@@ -248,7 +291,7 @@ export class ContentionProcedure {
     let used = 0;
     let tx = 1;
     let rx = windowEnd - t - 1;
-    const responseAt = t + this.p.response_delay + Math.floor(answered / this.answersPerSubframe);
+    const responseAt = t + this.responseDelay + Math.floor(answered / this.answersPerSubframe);
     if (detected && answered < this.answersPerOccasion && this.msg3ResourceFree(responseAt)) {
       const msg3 = this.p.msg3;
       const firstMsg3 = responseAt + this.p.msg3_delay;
@@ -257,6 +300,13 @@ export class ContentionProcedure {
       used = 1;
       tx = 1 + msg3.max_transmissions;
       rx = responseAt - t + (failAt - firstMsg3) - msg3.max_transmissions;
+    }
+    if (used === 0) {
+      for (let d = first; d !== NONE; d = this.nextOnPreamble[d] as number) {
+        this.spend(d, t, tx, rx);
+        this.failAtWindowEnd(d, index, windowEnd);
+      }
+      return 0;
     }
     for (let d = first; d !== NONE; d = this.nextOnPreamble[d] as number) {
       this.spend(d, t, tx, rx);
@@ -309,7 +359,7 @@ export class ContentionProcedure {
 
   /** Energy of one attempt: `tx` and `rx` ms, and the idle wait since the device was last active. */
   private spend(device: number, t: number, tx: number, rx: number): void {
-    this.ledger.energy(this.host.groupOf[device] as number, this.host.holArrival[device] as number, tx, rx, t - (this.idleFrom[device] as number));
+    this.ledger.energy(this.groupOf[device] as number, this.holArrival[device] as number, tx, rx, t - (this.idleFrom[device] as number));
   }
 
   /** Transmissions until the first success; max + 1 when all `max` fail. */
@@ -325,6 +375,33 @@ export class ContentionProcedure {
     this.sim.at(t, this.attemptEndKind, device);
   }
 
+  /** The attempt fails when occasion `index`'s response window ends (batched: see windowHead). */
+  private failAtWindowEnd(device: number, index: number, windowEnd: number): void {
+    this.outcome[device] = FAILURE;
+    this.nextEnding[device] = NONE;
+    const slot = index & this.windowMask;
+    const tail = this.windowTail[slot] as number;
+    if (tail === NONE) {
+      this.windowHead[slot] = device;
+      this.sim.at(windowEnd, this.windowEndKind, index);
+    } else {
+      this.nextEnding[tail] = device;
+    }
+    this.windowTail[slot] = device;
+  }
+
+  private windowEnded(index: number, t: number): void {
+    const slot = index & this.windowMask;
+    let device = this.windowHead[slot] as number;
+    this.windowHead[slot] = NONE;
+    this.windowTail[slot] = NONE;
+    while (device !== NONE) {
+      const next = this.nextEnding[device] as number;
+      this.attemptEnded(device, t);
+      device = next;
+    }
+  }
+
   private attemptEnded(device: number, t: number): void {
     const k = this.attempt[device] as number;
     if (this.outcome[device] === SUCCESS) {
@@ -332,13 +409,13 @@ export class ContentionProcedure {
       return;
     }
     this.idleFrom[device] = t;
-    if (k >= this.p.preamble_trans_max) {
+    if (k >= this.maxAttempts) {
       this.host.dropped(device, t);
       return;
     }
     this.attempt[device] = k + 1;
     // Backoff uniform in [0, backoff_indicator] (TS 36.321 5.1.4), continuous (modelling choice).
-    let ready = t + this.backoffStream.next() * this.p.backoff_indicator;
+    let ready = t + this.backoffStream.next() * this.backoffIndicator;
     if (this.barring !== null && this.barring.everyAttempt) ready = this.barring.passTime(ready);
     this.scheduleJoin(device, ready);
   }
