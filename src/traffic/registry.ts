@@ -8,6 +8,7 @@ import { alwaysFresh, alwaysFreshSchema } from './always-fresh.js';
 import { betaBurst, betaBurstSchema } from './beta-burst.js';
 import { markov, markovSchema } from './markov.js';
 import type { TrafficModelEntry } from './model.js';
+import { silent, silentSchema } from './silent.js';
 import { periodic, periodicSchema } from './periodic.js';
 import { poisson, poissonSchema } from './poisson.js';
 import { trace, traceSchema } from './trace.js';
@@ -22,11 +23,12 @@ export const trafficSchema = z.discriminatedUnion('model', [
   alarmFieldSchema,
   traceSchema,
   alwaysFreshSchema,
+  silentSchema,
 ]);
 
 export type TrafficParams = z.output<typeof trafficSchema>;
 
-const entries = [uniformWindow, betaBurst, poisson, periodic, markov, alarmField, trace, alwaysFresh] as const;
+const entries = [uniformWindow, betaBurst, poisson, periodic, markov, alarmField, trace, alwaysFresh, silent] as const;
 
 export function trafficModel(name: TrafficParams['model']): TrafficModelEntry<TrafficParams> {
   const entry = entries.find((e) => e.name === name);
