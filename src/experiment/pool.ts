@@ -32,13 +32,17 @@ export class InlineRunner implements TaskRunner {
   async close(): Promise<void> {}
 }
 
-/** The compiled worker script (tests run the TypeScript sources, whose compiled twin lives in dist/). */
+/**
+ * The worker script: the bundled one next to the bundled command (dist/bundle/worker.mjs), the
+ * compiled one next to this module (dist/src/experiment/worker.js), or — for tests, which run the
+ * TypeScript sources — the compiled twin in dist/.
+ */
 function workerScript(): URL {
-  const here = new URL('./worker.js', import.meta.url);
-  if (existsSync(fileURLToPath(here))) return here;
-  const built = new URL('../../dist/src/experiment/worker.js', import.meta.url);
-  if (existsSync(fileURLToPath(built))) return built;
-  throw new Error('the compiled worker (dist/src/experiment/worker.js) is missing: run `npm run build`');
+  for (const relative of ['./worker.mjs', './worker.js', '../../dist/src/experiment/worker.js']) {
+    const url = new URL(relative, import.meta.url);
+    if (existsSync(fileURLToPath(url))) return url;
+  }
+  throw new Error('the compiled worker is missing: run `npm run build`');
 }
 
 interface Pending {
