@@ -8,7 +8,8 @@
  * zero in every unit. Values are computed exactly from the decimal text (one rounding to double),
  * so `formatDuration` and `parseDuration` round-trip every finite non-negative millisecond value.
  */
-import { z } from 'zod';
+import type { z } from 'zod';
+import { isQuantitySchema, quantitySchema, type QuantityIssueParams, type QuantityKind, type QuantityOptions } from './quantity.js';
 
 /** Unit symbol → size in microseconds (integers, so decimal arithmetic stays exact). */
 const UNIT_US: ReadonlyMap<string, bigint> = new Map([
@@ -154,84 +155,38 @@ export function formatDuration(ms: number): string {
 }
 
 /** Options of {@link duration}; bounds in ms, inclusive. */
-export interface DurationOptions {
-  readonly min?: number;
-  readonly max?: number;
-  /** Require a value greater than 0. */
-  readonly positive?: boolean;
-  readonly description?: string;
-}
+export type DurationOptions = QuantityOptions;
 
 /** Issue params that the validator turns into a Problem code and an `expected` line. */
-export interface DurationIssueParams {
-  readonly problem: 'bad-unit' | 'invalid-value';
-  readonly expected: string;
-}
+export type DurationIssueParams = QuantityIssueParams;
 
-/** The transform stage of every duration schema; clones (`.meta()`, `.describe()`) share it. */
-const durationStages = new WeakSet<object>();
+const DURATION_KIND: QuantityKind = {
+  noun: 'duration',
+  units: DURATION_UNITS,
+  examples: '10ms or 2.5s',
+  expected: DURATION_EXPECTED,
+  pattern: DURATION_PATTERN,
+  positivePattern: POSITIVE_DURATION_PATTERN,
+  parse: (text) => {
+    const r = parseDuration(text);
+    return r.ok ? { ok: true, value: r.ms } : r;
+  },
+  format: formatDuration,
+  stages: new WeakSet<object>(),
+};
 
 /** True for a schema made by {@link duration} or a clone of it (not through wrappers such as `.optional()`). */
 export function isDurationSchema(schema: z.core.$ZodType): boolean {
-  const def = schema._zod.def;
-  return def.type === 'pipe' && durationStages.has((def as z.core.$ZodPipeDef).out);
-}
-
-function boundsText(o: DurationOptions): string {
-  const parts: string[] = [];
-  if (o.positive === true) parts.push('greater than 0');
-  if (o.min !== undefined) parts.push(`at least ${formatDuration(o.min)}`);
-  if (o.max !== undefined) parts.push(`at most ${formatDuration(o.max)}`);
-  return parts.join(' and ');
-}
-
-/** Range check after parsing; returns a reason, or undefined when in range. */
-function outOfRange(ms: number, o: DurationOptions): string | undefined {
-  const bad =
-    (o.positive === true && ms <= 0) ||
-    (o.min !== undefined && ms < o.min) ||
-    (o.max !== undefined && ms > o.max);
-  return bad ? `must be ${boundsText(o)}` : undefined;
-}
-
-function describe(o: DurationOptions): string {
-  const range = boundsText(o);
-  const what = `Duration: a number with a unit (${DURATION_UNITS}), e.g. 10ms or 2.5s, or 0${range === '' ? '' : `; ${range}`}.`;
-  return o.description === undefined ? what : `${o.description.trim()} ${what}`;
+  return isQuantitySchema(DURATION_KIND, schema);
 }
 
 /**
- * zod schema of a duration: input a string such as "10ms" (or the number 0), output milliseconds.
- * Bounds (ms, inclusive) and `positive` are checked after parsing. Issues are `custom` with
- * {@link DurationIssueParams}; a value that is neither string nor number fails the input union.
- * The input JSON Schema is `anyOf: [string with DURATION_PATTERN, const 0]` with a description.
- * For defaults use `.default(ms)` (the editor schema shows it formatted) or `.prefault('10s')`.
+ * zod schema of a duration: input a string such as "10ms" (or the number 0), output milliseconds
+ * (see quantity.ts). For defaults use `.default(ms)` (the editor schema shows it formatted) or
+ * `.prefault('10s')`.
  */
 export function duration(options: DurationOptions = {}) {
-  if (options.min !== undefined && options.max !== undefined && options.min > options.max) {
-    throw new RangeError(`duration(): min ${options.min} > max ${options.max}`);
-  }
-  const zeroAllowed = options.positive !== true && (options.min === undefined || options.min <= 0);
-  const input = z.union(
-    zeroAllowed
-      ? [z.string().meta({ pattern: DURATION_PATTERN }), z.number().meta({ const: 0 })]
-      : [z.string().meta({ pattern: POSITIVE_DURATION_PATTERN })],
-    { error: () => `expected a duration: a number with a unit (${DURATION_UNITS})` },
-  );
-  const schema = input
-    .transform((value, ctx): number => {
-      const r = parseDuration(value);
-      const reason = r.ok ? outOfRange(r.ms, options) : r.reason;
-      if (r.ok && reason === undefined) return r.ms;
-      const params: DurationIssueParams = r.ok
-        ? { problem: 'invalid-value', expected: `a duration ${boundsText(options)}` }
-        : { problem: 'bad-unit', expected: DURATION_EXPECTED };
-      ctx.issues.push({ code: 'custom', message: reason ?? 'invalid duration', input: value, params: { ...params } });
-      return z.NEVER;
-    })
-    .meta({ description: describe(options) });
-  durationStages.add(schema._zod.def.out);
-  return schema;
+  return quantitySchema(DURATION_KIND, options);
 }
 
 /** The type of a schema made by {@link duration}: input `string | number`, output ms. */

@@ -7,7 +7,8 @@
  * unit. Values are computed exactly from the decimal text (one rounding to double), so `formatLength`
  * and `parseLength` round-trip every finite non-negative value in metres.
  */
-import { z } from 'zod';
+import type { z } from 'zod';
+import { isQuantitySchema, quantitySchema, type QuantityIssueParams, type QuantityKind, type QuantityOptions } from './quantity.js';
 
 /** Unit symbol → size as a power of ten of metres (so decimal arithmetic stays exact). */
 const UNIT_EXP: ReadonlyMap<string, number> = new Map([
@@ -103,84 +104,37 @@ export function formatLength(metres: number): string {
 }
 
 /** Options of {@link length}; bounds in metres, inclusive. */
-export interface LengthOptions {
-  readonly min?: number;
-  readonly max?: number;
-  /** Require a value greater than 0. */
-  readonly positive?: boolean;
-  readonly description?: string;
-}
+export type LengthOptions = QuantityOptions;
 
 /** Issue params that the validator turns into a Problem code and an `expected` line. */
-export interface LengthIssueParams {
-  readonly problem: 'bad-unit' | 'invalid-value';
-  readonly expected: string;
-}
+export type LengthIssueParams = QuantityIssueParams;
 
-/** The transform stage of every length schema; clones (`.meta()`, `.describe()`) share it. */
-const lengthStages = new WeakSet<object>();
+const LENGTH_KIND: QuantityKind = {
+  noun: 'length',
+  units: LENGTH_UNITS,
+  examples: '500m or 1.2km',
+  expected: LENGTH_EXPECTED,
+  pattern: LENGTH_PATTERN,
+  positivePattern: POSITIVE_LENGTH_PATTERN,
+  parse: (text) => {
+    const r = parseLength(text);
+    return r.ok ? { ok: true, value: r.metres } : r;
+  },
+  format: formatLength,
+  stages: new WeakSet<object>(),
+};
 
 /** True for a schema made by {@link length} or a clone of it (not through wrappers such as `.optional()`). */
 export function isLengthSchema(schema: z.core.$ZodType): boolean {
-  const def = schema._zod.def;
-  return def.type === 'pipe' && lengthStages.has((def as z.core.$ZodPipeDef).out);
-}
-
-function boundsText(o: LengthOptions): string {
-  const parts: string[] = [];
-  if (o.positive === true) parts.push('greater than 0');
-  if (o.min !== undefined) parts.push(`at least ${formatLength(o.min)}`);
-  if (o.max !== undefined) parts.push(`at most ${formatLength(o.max)}`);
-  return parts.join(' and ');
-}
-
-/** Range check after parsing; returns a reason, or undefined when in range. */
-function outOfRange(metres: number, o: LengthOptions): string | undefined {
-  const bad =
-    (o.positive === true && metres <= 0) ||
-    (o.min !== undefined && metres < o.min) ||
-    (o.max !== undefined && metres > o.max);
-  return bad ? `must be ${boundsText(o)}` : undefined;
-}
-
-function describe(o: LengthOptions): string {
-  const range = boundsText(o);
-  const what = `Length: a number with a unit (${LENGTH_UNITS}), e.g. 500m or 1.2km, or 0${range === '' ? '' : `; ${range}`}.`;
-  return o.description === undefined ? what : `${o.description.trim()} ${what}`;
+  return isQuantitySchema(LENGTH_KIND, schema);
 }
 
 /**
- * zod schema of a length: input a string such as "500m" (or the number 0), output metres.
- * Bounds (metres, inclusive) and `positive` are checked after parsing. Issues are `custom` with
- * {@link LengthIssueParams}. The input JSON Schema is `anyOf: [string with LENGTH_PATTERN, const 0]`
- * (only the string when 0 is not allowed) with a description. For defaults use `.default(metres)` or
- * `.prefault('50m')`.
+ * zod schema of a length: input a string such as "500m" (or the number 0), output metres (see
+ * quantity.ts). For defaults use `.prefault('50m')`.
  */
 export function length(options: LengthOptions = {}) {
-  if (options.min !== undefined && options.max !== undefined && options.min > options.max) {
-    throw new RangeError(`length(): min ${options.min} > max ${options.max}`);
-  }
-  const zeroAllowed = options.positive !== true && (options.min === undefined || options.min <= 0);
-  const input = z.union(
-    zeroAllowed
-      ? [z.string().meta({ pattern: LENGTH_PATTERN }), z.number().meta({ const: 0 })]
-      : [z.string().meta({ pattern: POSITIVE_LENGTH_PATTERN })],
-    { error: () => `expected a length: a number with a unit (${LENGTH_UNITS})` },
-  );
-  const schema = input
-    .transform((value, ctx): number => {
-      const r = parseLength(value);
-      const reason = r.ok ? outOfRange(r.metres, options) : r.reason;
-      if (r.ok && reason === undefined) return r.metres;
-      const params: LengthIssueParams = r.ok
-        ? { problem: 'invalid-value', expected: `a length ${boundsText(options)}` }
-        : { problem: 'bad-unit', expected: LENGTH_EXPECTED };
-      ctx.issues.push({ code: 'custom', message: reason ?? 'invalid length', input: value, params: { ...params } });
-      return z.NEVER;
-    })
-    .meta({ description: describe(options) });
-  lengthStages.add(schema._zod.def.out);
-  return schema;
+  return quantitySchema(LENGTH_KIND, options);
 }
 
 /** The type of a schema made by {@link length}: input `string | number`, output metres. */

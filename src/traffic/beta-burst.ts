@@ -7,7 +7,7 @@ import { z } from 'zod';
 import { duration } from '../config/duration.js';
 import { beta } from '../random/index.js';
 import type { TrafficModelEntry } from './model.js';
-import { activeDevices, onceEachSource } from './once-each.js';
+import { activeShareField, onceEachOverWindow } from './once-each.js';
 
 export const betaBurstSchema = z
   .strictObject({
@@ -16,12 +16,7 @@ export const betaBurstSchema = z
     alpha: z.number().positive().default(3).describe('First Beta shape parameter (TR 37.868 model 2: 3).'),
     beta: z.number().positive().default(4).describe('Second Beta shape parameter (TR 37.868 model 2: 4).'),
     start: duration({ description: 'When the burst window opens.' }).default(0),
-    active_share: z
-      .number()
-      .min(0)
-      .max(1)
-      .default(1)
-      .describe('Share of the devices that send at all (each independently); 1: every device.'),
+    active_share: activeShareField,
   })
   .describe('Each device activates once at start + window·X, X ~ Beta(alpha, beta) (3GPP TR 37.868 traffic model 2).');
 
@@ -33,10 +28,6 @@ export const betaBurst: TrafficModelEntry<BetaBurstParams> = {
   schema: betaBurstSchema,
   recurring: () => false,
   create(params, env) {
-    const devices = activeDevices(env, params.active_share);
-    const s = env.stream('times');
-    const times = new Float64Array(devices?.length ?? env.deviceCount);
-    for (let i = 0; i < times.length; i++) times[i] = params.start + beta(s, params.alpha, params.beta) * params.window;
-    return onceEachSource(env, times, params.start, params.start + params.window, devices);
+    return onceEachOverWindow(env, params, (s) => beta(s, params.alpha, params.beta));
   },
 };

@@ -6,7 +6,33 @@
  * any smooth density), and a single kernel event walks the sorted list. The kernel therefore holds one
  * pending arrival per group instead of one per device.
  */
+import { z } from 'zod';
+import type { Stream } from '../random/index.js';
 import type { TrafficEnv, TrafficSource } from './model.js';
+
+/** The `active_share` key of the once-each models. */
+export const activeShareField = z
+  .number()
+  .min(0)
+  .max(1)
+  .default(1)
+  .describe('Share of the devices that send at all (each independently); 1: every device.');
+
+/**
+ * A once-each source whose active devices report at start + window·X, X drawn by `fraction` from the
+ * group's "times" stream (one call per active device, in device order).
+ */
+export function onceEachOverWindow(
+  env: TrafficEnv,
+  window: { readonly start: number; readonly window: number; readonly active_share: number },
+  fraction: (s: Stream) => number,
+): TrafficSource {
+  const devices = activeDevices(env, window.active_share);
+  const s = env.stream('times');
+  const times = new Float64Array(devices?.length ?? env.deviceCount);
+  for (let i = 0; i < times.length; i++) times[i] = window.start + fraction(s) * window.window;
+  return onceEachSource(env, times, window.start, window.start + window.window, devices);
+}
 
 /**
  * Which devices of a group send at all: every one when `share` is 1 (no draws), otherwise each

@@ -5,7 +5,7 @@
 import { z } from 'zod';
 import { duration } from '../config/duration.js';
 import type { TrafficModelEntry } from './model.js';
-import { activeDevices, onceEachSource } from './once-each.js';
+import { activeShareField, onceEachOverWindow } from './once-each.js';
 
 export const uniformWindowSchema = z
   .strictObject({
@@ -14,12 +14,7 @@ export const uniformWindowSchema = z
       60_000,
     ),
     start: duration({ description: 'When the window opens.' }).default(0),
-    active_share: z
-      .number()
-      .min(0)
-      .max(1)
-      .default(1)
-      .describe('Share of the devices that send at all (each independently); 1: every device.'),
+    active_share: activeShareField,
   })
   .describe('Each device activates once, uniformly over a window (3GPP TR 37.868 traffic model 1).');
 
@@ -31,10 +26,6 @@ export const uniformWindow: TrafficModelEntry<UniformWindowParams> = {
   schema: uniformWindowSchema,
   recurring: () => false,
   create(params, env) {
-    const devices = activeDevices(env, params.active_share);
-    const s = env.stream('times');
-    const times = new Float64Array(devices?.length ?? env.deviceCount);
-    for (let i = 0; i < times.length; i++) times[i] = params.start + s.next() * params.window;
-    return onceEachSource(env, times, params.start, params.start + params.window, devices);
+    return onceEachOverWindow(env, params, (s) => s.next());
   },
 };
