@@ -5,7 +5,7 @@
  */
 import { z } from 'zod';
 import { duration } from '../config/duration.js';
-import { beta } from '../random/index.js';
+import { beta, type Stream } from '../random/index.js';
 import type { TrafficModelEntry } from './model.js';
 import { activeShareField, onceEachOverWindow } from './once-each.js';
 
@@ -22,12 +22,16 @@ export const betaBurstSchema = z
 
 export type BetaBurstParams = z.output<typeof betaBurstSchema>;
 
+function betaFraction(s: Stream, p: BetaBurstParams): number {
+  return beta(s, p.alpha, p.beta);
+}
+
 export const betaBurst: TrafficModelEntry<BetaBurstParams> = {
   name: 'beta-burst',
   summary: 'each device activates once at window·X, X ~ Beta(alpha, beta) (TR 37.868 model 2)',
   schema: betaBurstSchema,
   recurring: () => false,
   create(params, env) {
-    return onceEachOverWindow(env, params, (s) => beta(s, params.alpha, params.beta));
+    return onceEachOverWindow(env, params, betaFraction);
   },
 };

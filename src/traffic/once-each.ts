@@ -20,18 +20,29 @@ export const activeShareField = z
 
 /**
  * A once-each source whose active devices report at start + window·X, X drawn by `fraction` from the
- * group's "times" stream (one call per active device, in device order).
+ * group's "times" stream (one call per active device, in device order). `fraction` should be a
+ * module-level function (one call target for the JIT), reading its parameters from `params`.
  */
-export function onceEachOverWindow(
+export function onceEachOverWindow<P extends { readonly start: number; readonly window: number; readonly active_share: number }>(
   env: TrafficEnv,
-  window: { readonly start: number; readonly window: number; readonly active_share: number },
-  fraction: (s: Stream) => number,
+  params: P,
+  fraction: (s: Stream, params: P) => number,
 ): TrafficSource {
-  const devices = activeDevices(env, window.active_share);
-  const s = env.stream('times');
+  const devices = activeDevices(env, params.active_share);
   const times = new Float64Array(devices?.length ?? env.deviceCount);
-  for (let i = 0; i < times.length; i++) times[i] = window.start + fraction(s) * window.window;
-  return onceEachSource(env, times, window.start, window.start + window.window, devices);
+  fillTimes(times, env.stream('times'), params, fraction);
+  return onceEachSource(env, times, params.start, params.start + params.window, devices);
+}
+
+function fillTimes<P extends { readonly start: number; readonly window: number }>(
+  times: Float64Array,
+  s: Stream,
+  params: P,
+  fraction: (s: Stream, params: P) => number,
+): void {
+  const start = params.start;
+  const window = params.window;
+  for (let i = 0; i < times.length; i++) times[i] = start + fraction(s, params) * window;
 }
 
 /**
@@ -51,26 +62,48 @@ export function orderByTime(times: Float64Array, lo: number, hi: number): Int32A
   const n = times.length;
   const order = new Int32Array(n);
   if (n === 0) return order;
-  const bins = n;
-  const width = hi > lo ? (hi - lo) / bins : 1;
-  const start = new Int32Array(bins + 1);
+  // Bucket sort: n bins over [lo, hi] (about one time per bin for a smooth density), then an
+  // insertion sort inside each bin. Each pass is its own small function, so the JIT compiles each
+  // with full type feedback even though the whole sort runs once per replication.
   const binOf = new Int32Array(n);
-  for (let i = 0; i < n; i++) {
+  const start = new Int32Array(n + 1);
+  assignBins(times, lo, hi > lo ? (hi - lo) / n : 1, binOf, start);
+  prefixSums(start);
+  placeByBin(binOf, start, order);
+  sortWithinBins(times, start, order);
+  return order;
+}
+
+/** binOf[i] = bin of times[i]; start[b + 1] = how many times fall in bin b. */
+function assignBins(times: Float64Array, lo: number, width: number, binOf: Int32Array, start: Int32Array): void {
+  const bins = binOf.length;
+  for (let i = 0; i < bins; i++) {
     let b = Math.floor(((times[i] as number) - lo) / width);
     if (b < 0) b = 0;
     else if (b >= bins) b = bins - 1;
     binOf[i] = b;
     start[b + 1] = (start[b + 1] as number) + 1;
   }
-  for (let b = 0; b < bins; b++) start[b + 1] = (start[b + 1] as number) + (start[b] as number);
-  const fill = start.slice(0, bins);
-  for (let i = 0; i < n; i++) {
+}
+
+function prefixSums(start: Int32Array): void {
+  for (let b = 1; b < start.length; b++) start[b] = (start[b] as number) + (start[b - 1] as number);
+}
+
+/** Writes each index at the next free place of its bin (stable: index order within a bin). */
+function placeByBin(binOf: Int32Array, start: Int32Array, order: Int32Array): void {
+  const next = new Int32Array(start.length - 1);
+  next.set(start.subarray(0, start.length - 1));
+  for (let i = 0; i < binOf.length; i++) {
     const b = binOf[i] as number;
-    order[fill[b] as number] = i;
-    fill[b] = (fill[b] as number) + 1;
+    order[next[b] as number] = i;
+    next[b] = (next[b] as number) + 1;
   }
-  // Insertion sort inside each bin (bins hold ~1 element on average).
-  for (let b = 0; b < bins; b++) {
+}
+
+/** Insertion sort by time inside each bin (bins hold about one element on average). */
+function sortWithinBins(times: Float64Array, start: Int32Array, order: Int32Array): void {
+  for (let b = 0; b < start.length - 1; b++) {
     const from = start[b] as number;
     const to = start[b + 1] as number;
     for (let j = from + 1; j < to; j++) {
@@ -84,7 +117,6 @@ export function orderByTime(times: Float64Array, lo: number, hi: number): Int32A
       order[k + 1] = idx;
     }
   }
-  return order;
 }
 
 /**

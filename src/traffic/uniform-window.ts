@@ -4,6 +4,7 @@
  */
 import { z } from 'zod';
 import { duration } from '../config/duration.js';
+import type { Stream } from '../random/index.js';
 import type { TrafficModelEntry } from './model.js';
 import { activeShareField, onceEachOverWindow } from './once-each.js';
 
@@ -20,12 +21,16 @@ export const uniformWindowSchema = z
 
 export type UniformWindowParams = z.output<typeof uniformWindowSchema>;
 
+function uniformFraction(s: Stream): number {
+  return s.next();
+}
+
 export const uniformWindow: TrafficModelEntry<UniformWindowParams> = {
   name: 'uniform-window',
   summary: 'each device activates once, uniformly over `window` (TR 37.868 model 1)',
   schema: uniformWindowSchema,
   recurring: () => false,
   create(params, env) {
-    return onceEachOverWindow(env, params, (s) => s.next());
+    return onceEachOverWindow(env, params, uniformFraction);
   },
 };
