@@ -68,6 +68,12 @@ export class Cell implements ContentionHost, PolicyHost {
   readonly ledger: Ledger;
   readonly groupOf: Uint16Array;
   readonly holArrival: Float64Array;
+  /**
+   * When the head-of-line packet's content was generated: its arrival, or for generate-at-will traffic
+   * the start of its latest transmission. Delay, deadline and age count from here; the packet counts
+   * (warm-up, conservation) by its arrival.
+   */
+  private readonly holGenerated: Float64Array;
   private readonly busy: Uint8Array;
   /** Packets waiting behind the head-of-line one, per device (rare: a Map keeps idle devices free). */
   private readonly backlog = new Map<number, number[]>();
@@ -87,6 +93,7 @@ export class Cell implements ContentionHost, PolicyHost {
     this.deviceCount = plan.groups.reduce((n, g) => n + g.count, 0);
     this.groupOf = new Uint16Array(this.deviceCount);
     this.holArrival = new Float64Array(this.deviceCount);
+    this.holGenerated = new Float64Array(this.deviceCount);
     this.busy = new Uint8Array(this.deviceCount);
     this.ledger = new Ledger({
       groupNames: plan.groups.map((g) => g.name),
@@ -107,7 +114,8 @@ export class Cell implements ContentionHost, PolicyHost {
       ra.occasion_period;
     const pool = new UplinkPool(plan.uplink.capacity, poolHorizon);
     const shared = plan.uplink.msg3 === 'shared';
-    const contention = new ContentionProcedure(ra, this, streams, this.deviceCount, shared ? pool : null, shared ? plan.uplink.reserved_for_grants : 0);
+    const anyFresh = plan.groups.some((g) => trafficModel(g.traffic.model).freshAtTransmission === true);
+    const contention = new ContentionProcedure(ra, this, streams, this.deviceCount, shared ? pool : null, shared ? plan.uplink.reserved_for_grants : 0, anyFresh);
 
     const dynamic: DynamicGrants[] = [];
     let first = 0;
@@ -187,18 +195,19 @@ export class Cell implements ContentionHost, PolicyHost {
   private startPacket(device: number, arrival: number): void {
     this.busy[device] = 1;
     this.holArrival[device] = arrival;
+    this.holGenerated[device] = arrival;
     (this.policies[this.groupOf[device] as number] as AccessPolicy).begin(device);
   }
 
   transmissionStarts(device: number, t: number): void {
-    if (this.fresh[this.groupOf[device] as number] === true) this.holArrival[device] = t;
+    if (this.fresh[this.groupOf[device] as number] === true) this.holGenerated[device] = t;
   }
 
   delivered(device: number, t: number, preambleTx: number, firstPreamble: number, seenStart: number): void {
     const g = this.groupOf[device] as number;
-    const arrival = this.holArrival[device] as number;
-    this.ledger.delivered(g, arrival, t, preambleTx, firstPreamble);
-    this.ages.delivered(device, arrival, t);
+    const generated = this.holGenerated[device] as number;
+    this.ledger.delivered(g, this.holArrival[device] as number, t, preambleTx, firstPreamble, generated);
+    this.ages.delivered(device, generated, t);
     (this.policies[g] as AccessPolicy).finished?.(device, t, true, seenStart);
     this.nextPacket(device);
   }
@@ -214,7 +223,7 @@ export class Cell implements ContentionHost, PolicyHost {
     const queue = this.backlog.get(device);
     if (queue === undefined) {
       this.busy[device] = 0;
-      (this.sources[this.groupOf[device] as number] as TrafficSource).deviceIdle?.(device - (this.firsts[this.groupOf[device] as number] as number));
+      (this.sources[this.groupOf[device] as number] as TrafficSource).deviceIdle?.(device);
       return;
     }
     const arrival = queue.shift() as number;

@@ -138,14 +138,15 @@ export class Ledger {
 
   /**
    * A packet that arrived at `arrival` was delivered at `t` after `preambleTx` preamble transmissions
-   * (0 when it never contended), the first of them at `firstPreamble` (NaN when none).
+   * (0 when it never contended), the first of them at `firstPreamble` (NaN when none). Its delay counts
+   * from `generated` (the arrival, or for generate-at-will traffic the start of its transmission).
    */
-  delivered(group: number, arrival: number, t: number, preambleTx: number, firstPreamble: number): void {
+  delivered(group: number, arrival: number, t: number, preambleTx: number, firstPreamble: number, generated = arrival): void {
     this.lastOutcomeTime = t;
     this.integrate(group, t);
     this.inSystem[group] = (this.inSystem[group] as number) - 1;
     if (arrival < this.warmup) return;
-    const delay = t - arrival;
+    const delay = t - generated;
     this.completed[group] = (this.completed[group] as number) + 1;
     this.delay[group]!.add(delay);
     if (delay <= (this.deadlines[group] as number)) this.deadlineMet[group] = (this.deadlineMet[group] as number) + 1;

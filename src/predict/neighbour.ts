@@ -166,7 +166,12 @@ export class NeighbourPredictor implements Predictor {
     for (let k = 0; k < n; k++) this.addReport(this.nearIndex[k] as number, this.nearD2[k] as number);
   }
 
-  observeGrant(device: number, t: number, used: boolean): void {
+  advance(now: number): void {
+    this.queue.advance(now);
+  }
+
+  /** The outcome of a grant, learnt at `t` (the granted subframe received); empty grants hold back from `t`. */
+  observeGrant(device: number, t: number, used: boolean, _grantedAt?: number): void {
     this.queue.advance(t);
     this.outstanding[device] = 0;
     if (used) return;

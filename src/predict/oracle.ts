@@ -52,6 +52,8 @@ export class OraclePredictor implements Predictor {
   private readonly pickStream: Stream;
   /** 1 while the device holds a packet waiting for a grant (truth). */
   private readonly waiting: Uint8Array;
+  /** Recall draw of the device's current packet (1: foreseen), kept for its later waits. */
+  private readonly foreseenPacket: Uint8Array;
   private waitingCount = 0;
   /** Unordered set of foreseen waiting devices: members[0 … size), slot[d] its index or −1. */
   private readonly members: Int32Array;
@@ -70,6 +72,7 @@ export class OraclePredictor implements Predictor {
     this.falseAlarmStream = host.stream('false-alarm');
     this.pickStream = host.stream('pick');
     this.waiting = new Uint8Array(n);
+    this.foreseenPacket = new Uint8Array(n);
     this.members = new Int32Array(n);
     this.slot = new Int32Array(n).fill(-1);
     this.picked = new Uint8Array(n);
@@ -90,16 +93,18 @@ export class OraclePredictor implements Predictor {
   observeGrant(): void {}
 
   /**
-   * A packet of `device` starts waiting for a grant: one recall draw. A device waits with at most one
-   * packet (its head-of-line one); a repeated call before `truthDone` counts as a new packet.
+   * A packet of `device` starts waiting for a grant: one recall draw per packet. A device waits with at
+   * most one packet (its head-of-line one); a repeated call before `truthDone` counts as a new packet.
+   * `again`: the same packet waits again after all its HARQ transmissions failed — no new draw; it is
+   * flagged again if it was foreseen.
    */
-  truthWaiting(device: number): void {
+  truthWaiting(device: number, again = false): void {
     if (this.waiting[device] === 0) {
       this.waiting[device] = 1;
       this.waitingCount++;
     }
-    const foreseen = this.recallStream.next() < this.recall;
-    if (foreseen && (this.slot[device] as number) < 0) {
+    if (!again) this.foreseenPacket[device] = this.recallStream.next() < this.recall ? 1 : 0;
+    if (this.foreseenPacket[device] === 1 && (this.slot[device] as number) < 0) {
       this.slot[device] = this.size;
       this.members[this.size++] = device;
       this.host.flag(device, true);

@@ -33,8 +33,13 @@ export interface Predictor {
    * `seenStart` (the grant it issued, or the occasion of the successful preamble).
    */
   observeDelivery(device: number, t: number, seenStart: number): void;
-  /** A grant given to `device` at `t` carried data (used) or was empty (wasted). */
-  observeGrant(device: number, t: number, used: boolean): void;
+  /**
+   * The grant given to `device` at `grantedAt` carried data (used) or was empty (wasted); the base
+   * station learns it at `t`, when the granted subframe has been received.
+   */
+  observeGrant(device: number, t: number, used: boolean, grantedAt: number): void;
+  /** Brings the candidate set up to time `now` (flags of devices that became due by now). */
+  advance?(now: number): void;
   /**
    * Chooses up to `k` devices to grant at time `now`, best first, writing their indices into `out`;
    * returns how many were chosen. Chosen devices stop being flagged (call host.flag(d, false)). A
@@ -46,8 +51,11 @@ export interface Predictor {
    * alarms, oracle only); counted in the precision denominator. 0 for other predictors.
    */
   transientFalseAlarms(): number;
-  /** Oracle only: the device now holds a packet waiting for a grant (truth). */
-  truthWaiting?(device: number): void;
+  /**
+   * Oracle only: the device now holds a packet waiting for a grant (truth); `again` when it is the same
+   * packet waiting again after all its HARQ transmissions failed (no new recall draw).
+   */
+  truthWaiting?(device: number, again?: boolean): void;
   /** Oracle only: the device's waiting packet was served or left grant access (truth). */
   truthDone?(device: number): void;
 }

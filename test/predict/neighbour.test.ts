@@ -76,8 +76,8 @@ describe('neighbour predictor', () => {
     const out = new Int32Array(2);
     expect(p.select(1010, 2, out)).toBe(2);
     expect([...out]).toEqual([1, 2]);
-    p.observeGrant(1, 1011, false);
-    p.observeGrant(2, 1011, true);
+    p.observeGrant(1, 1011, false, 1011);
+    p.observeGrant(2, 1011, true, 1011);
     p.select(1030, 0, out);
     expect(p.isCandidate(1)).toBe(false);
     p.select(1031, 0, out);

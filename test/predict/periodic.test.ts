@@ -57,13 +57,13 @@ function grantLoop(period: number, phases: readonly number[], horizon: number, c
       const d = out[i] as number;
       const report = pending[d] as number;
       if (Number.isNaN(report)) {
-        p.observeGrant(d, t, false);
+        p.observeGrant(d, t, false, t);
         r.wasted++;
         continue;
       }
       r.minLag = Math.min(r.minLag, t - report);
       r.maxLag = Math.max(r.maxLag, t - report);
-      p.observeGrant(d, t, true);
+      p.observeGrant(d, t, true, t);
       p.observeDelivery(d, t, t);
       pending[d] = NaN;
       r.granted++;
@@ -113,7 +113,7 @@ function grantTimes(p: Periodic, from: number, to: number, hasData: (t: number) 
     if (p.select(t, 1, out) === 0) continue;
     times.push(t);
     const used = hasData(t);
-    p.observeGrant(0, t, used);
+    p.observeGrant(0, t, used, t);
     if (used) p.observeDelivery(0, t, t);
   }
   return times;
@@ -171,7 +171,7 @@ describe('periodic predictor: empty grants', () => {
     q.observeDelivery(0, 0, 0);
     q.observeDelivery(0, 50, 50);
     expect(q.select(101, 1, out)).toBe(1);
-    q.observeGrant(0, 101, true);
+    q.observeGrant(0, 101, true, 101);
     expect(q.isCandidate(0)).toBe(false);
     expect(q.predictedAccess(0)).toBe(100);
     expect(q.periodEstimate(0)).toBe(50);
@@ -235,14 +235,14 @@ describe('periodic predictor: baseline estimate', () => {
       // Through our first grant, late: 297 + margin − margin = 297 > 295.5, so dated to the
       // prediction 295.5 (a late grant must not push the estimate later).
       const grant = 297 + margin;
-      p.observeGrant(0, grant, true);
+      p.observeGrant(0, grant, true, grant);
       p.observeDelivery(0, grant, grant);
       expect(p.periodEstimate(0)).toBe(97.5); // kept until the next observation
       expect(p.predictedAccess(0)).toBe(295.5 + 97.5);
       p.observeDelivery(0, 401, 401); // by contention: one period from the new anchor 295.5
       expect(p.periodEstimate(0)).toBe(401 - 295.5); // not (401 − 3)/4
       // A second grant delivery, earlier than its prediction (506.5): dated back by margin, no re-anchoring.
-      p.observeGrant(0, 500 + margin, true);
+      p.observeGrant(0, 500 + margin, true, 500 + margin);
       p.observeDelivery(0, 500 + margin, 500 + margin);
       expect(p.periodEstimate(0)).toBe((500 - 295.5) / 2);
       // exact, by the documented rule (margin 2.5 and these times are exact in binary).

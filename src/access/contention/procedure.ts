@@ -28,6 +28,8 @@ export interface ContentionHost {
   delivered(device: number, t: number, preambleTx: number, firstPreamble: number, seenStart: number): void;
   /** The access was dropped at `t` (preamble transmission limit reached). */
   dropped(device: number, t: number): void;
+  /** Generate-at-will traffic: the packet's content is taken when a transmission starts. */
+  transmissionStarts(device: number, t: number): void;
 }
 
 const NONE = -1;
@@ -111,6 +113,8 @@ export class ContentionProcedure {
     deviceCount: number,
     sharedPool: UplinkPool | null = null,
     keptForGrants = 0,
+    /** Some group's traffic is generate-at-will: stamp its packets at each preamble. */
+    private readonly stampFresh = false,
   ) {
     this.p = params;
     this.host = host;
@@ -238,6 +242,7 @@ export class ContentionProcedure {
       heads[preamble] = device;
       if (this.attempt[device] === 1) this.firstPreamble[device] = t;
       this.attemptOccasion[device] = t;
+      if (this.stampFresh) this.host.transmissionStarts(device, t);
       device = next;
     }
 

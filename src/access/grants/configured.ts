@@ -36,7 +36,7 @@ export class ConfiguredGrants implements GrantFrontEnd {
     return full + (phase < rest ? 1 : 0);
   }
 
-  waiting(i: number): void {
+  waiting(i: number, _again = false): void {
     const now = this.sim.now;
     const off = this.offset(i);
     const u = off + Math.ceil((now - off) / this.period) * this.period;
@@ -51,13 +51,17 @@ export class ConfiguredGrants implements GrantFrontEnd {
   stoppedWaiting(): void {}
   finished(): void {}
 
-  /** Opportunities of the whole group in [from, to) (ms), for the wasted-grant count. */
+  /**
+   * Opportunities of the whole group in [from, to] (ms), for the wasted-grant count. Both ends are
+   * included, as the simulation processes events at exactly the horizon and the ledger counts grants at
+   * or after the warm-up: an opportunity used at the horizon is also counted as issued.
+   */
   opportunitiesBetween(from: number, to: number): number {
     let total = 0;
     const p = this.period;
     const n = this.access.count;
-    // Opportunities of offset o in [from, to): count of k with from ≤ o + kp < to.
-    const countFor = (o: number): number => Math.max(0, Math.ceil((to - o) / p) - Math.ceil((from - o) / p));
+    // Opportunities of offset o in [from, to]: count of k with from ≤ o + kp ≤ to.
+    const countFor = (o: number): number => Math.max(0, Math.floor((to - o) / p) - Math.ceil((from - o) / p) + 1);
     const full = Math.floor(n / p);
     const rest = n - full * p;
     for (let o = 0; o < Math.min(p, n); o++) total += countFor(o) * (full + (o < rest ? 1 : 0));

@@ -30,8 +30,8 @@ export interface WaitRules {
 
 /** Hooks a front-end (dynamic or configured grants) receives. */
 export interface GrantFrontEnd {
-  /** The packet of group device i started waiting for a grant. */
-  waiting(i: number): void;
+  /** The packet of group device i started waiting for a grant (`again`: after all HARQ transmissions failed). */
+  waiting(i: number, again: boolean): void;
   /** Group device i stopped waiting (granted, fell back, dropped). */
   stoppedWaiting(i: number): void;
   /** A packet of device i ended (any path); seenStart as in AccessPolicy.finished. */
@@ -53,6 +53,8 @@ export class GrantedAccess implements AccessPolicy {
   private readonly state: Uint8Array;
   private readonly waitSince: Float64Array;
   private readonly timerAt: Float64Array;
+  /** Start of the current stretch of waiting (energy); waitSince keeps the packet's first wait. */
+  private readonly monitorSince: Float64Array;
   private readonly grantedAt: Float64Array;
   private readonly outcomeOk: Uint8Array;
   /** Flag bookkeeping for measured precision and recall (predictors only). */
@@ -78,6 +80,7 @@ export class GrantedAccess implements AccessPolicy {
     this.state = new Uint8Array(ctx.deviceCount);
     this.waitSince = new Float64Array(ctx.deviceCount);
     this.timerAt = new Float64Array(ctx.deviceCount).fill(Number.NaN);
+    this.monitorSince = new Float64Array(ctx.deviceCount);
     this.grantedAt = new Float64Array(ctx.deviceCount).fill(Number.NaN);
     this.outcomeOk = new Uint8Array(ctx.deviceCount);
     this.flagged = new Uint8Array(ctx.deviceCount);
@@ -103,11 +106,13 @@ export class GrantedAccess implements AccessPolicy {
     this.grantedAt[i] = Number.NaN;
     this.packetFlagged[i] = this.flagged[i] as number;
     this.recallCounted[i] = 0;
-    this.enterWaiting(i, now);
+    this.enterWaiting(i, now, false);
   }
 
-  private enterWaiting(i: number, now: number): void {
+  /** `again`: the same packet waits again after all its HARQ transmissions failed. */
+  private enterWaiting(i: number, now: number, again: boolean): void {
     this.state[i] = WAITING;
+    this.monitorSince[i] = now;
     if (this.flagged[i] === 1) this.flaggedWithData++;
     const deadline = this.waitSince[i] as number + Math.min(this.rules.fallbackAfter, this.rules.maxWait);
     if (Number.isFinite(deadline)) {
@@ -115,7 +120,7 @@ export class GrantedAccess implements AccessPolicy {
       this.timerAt[i] = at;
       this.host.sim.at(at, this.timerKind, i);
     }
-    this.front?.waiting(i);
+    this.front?.waiting(i, again);
   }
 
   private leaveWaiting(i: number, now: number, newState: number): void {
@@ -125,7 +130,7 @@ export class GrantedAccess implements AccessPolicy {
     this.front?.stoppedWaiting(i);
     const device = this.first + i;
     // Energy: waiting for a grant is spent monitoring for it (share `monitoring`), the rest idle.
-    const waited = now - (this.waitSince[i] as number);
+    const waited = now - (this.monitorSince[i] as number);
     this.ledger.energy(this.groupIndex, this.host.holArrival[device] as number, 0, waited * this.rules.monitoring, waited * (1 - this.rules.monitoring));
   }
 
@@ -155,9 +160,10 @@ export class GrantedAccess implements AccessPolicy {
     for (let k = reserved ? 1 : 0; k < sent; k++) this.pool.book(u + k * rtt);
     const end = u + (sent - 1) * rtt + this.uplink.tti;
     this.outcomeOk[i] = n <= max ? 1 : 0;
-    // Energy: one TTI transmitting and one receiving the HARQ feedback per transmission; idle between.
+    // Energy: one TTI transmitting and one receiving the HARQ feedback per transmission; idle in
+    // between. The last feedback comes after `end`, so [s, end] holds 2·sent − 1 busy TTIs.
     const tti = this.uplink.tti;
-    this.ledger.energy(this.groupIndex, this.host.holArrival[device] as number, sent * tti, sent * tti, Math.max(0, end - s - 2 * sent * tti));
+    this.ledger.energy(this.groupIndex, this.host.holArrival[device] as number, sent * tti, sent * tti, Math.max(0, end - s - (2 * sent - 1) * tti));
     this.host.sim.at(end, this.txEndKind, i);
   }
 
@@ -169,7 +175,7 @@ export class GrantedAccess implements AccessPolicy {
       return;
     }
     // All HARQ transmissions failed: wait for another grant (modelling choice).
-    this.enterWaiting(i, t);
+    this.enterWaiting(i, t, true);
   }
 
   private timerFired(i: number, t: number): void {

@@ -3,6 +3,12 @@
  * subframe they occupy (the first transmission and each HARQ retransmission), so a grant decided now
  * sees what Msg3 and earlier grants already hold in its transmission subframe. A ring of counters
  * indexed by subframe number; entries are reset as the ring wraps.
+ *
+ * Modelling choice: a booking always succeeds. HARQ retransmissions (synchronous, so their subframe is
+ * fixed when the first transmission is granted) and Msg3 are booked even where they overrun the
+ * capacity; the overrun only makes `freeAt` 0 for later grant decisions on that subframe. A
+ * scheduler would pre-empt or adapt instead; at the loads where this matters the results overstate
+ * what the uplink carries by at most the overrun.
  */
 export class UplinkPool {
   readonly capacity: number;

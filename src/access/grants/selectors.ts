@@ -10,11 +10,14 @@ export interface GrantSelector {
   select(now: number, k: number, out: Int32Array): number;
   /** Devices flagged by mistake at the last occasion and not held as candidates (precision denominator). */
   transientFalseAlarms(): number;
+  /** Brings the selector's candidates up to time `now` (before flags are sampled for precision). */
+  advance(now: number): void;
   /** Truth hooks (used by the oracle only). */
-  truthWaiting(i: number): void;
+  truthWaiting(i: number, again: boolean): void;
   truthDone(i: number): void;
   observeDelivery(i: number, t: number, seenStart: number): void;
-  observeGrant(i: number, t: number, used: boolean): void;
+  /** The base station learns at `t` whether the grant it gave device i at `grantedAt` carried a packet. */
+  observeGrant(i: number, t: number, used: boolean, grantedAt: number): void;
   /** Whether the selector flags devices (predictors) — precision and recall are reported only then. */
   readonly predicts: boolean;
 }
@@ -33,6 +36,7 @@ export class RandomSelector implements GrantSelector {
   transientFalseAlarms(): number {
     return 0;
   }
+  advance(): void {}
   truthWaiting(): void {}
   truthDone(): void {}
   observeDelivery(): void {}
@@ -49,8 +53,11 @@ export class PredictorSelector implements GrantSelector {
   transientFalseAlarms(): number {
     return this.predictor.transientFalseAlarms();
   }
-  truthWaiting(i: number): void {
-    this.predictor.truthWaiting?.(i);
+  advance(now: number): void {
+    this.predictor.advance?.(now);
+  }
+  truthWaiting(i: number, again: boolean): void {
+    this.predictor.truthWaiting?.(i, again);
   }
   truthDone(i: number): void {
     this.predictor.truthDone?.(i);
@@ -58,7 +65,7 @@ export class PredictorSelector implements GrantSelector {
   observeDelivery(i: number, t: number, seenStart: number): void {
     this.predictor.observeDelivery(i, t, seenStart);
   }
-  observeGrant(i: number, t: number, used: boolean): void {
-    this.predictor.observeGrant(i, t, used);
+  observeGrant(i: number, t: number, used: boolean, grantedAt: number): void {
+    this.predictor.observeGrant(i, t, used, grantedAt);
   }
 }

@@ -15,13 +15,15 @@ export const accessSchema = z
 
 export type AccessParams = z.output<typeof accessSchema>;
 
-export const policyNames: readonly string[] = ['contention', 'random-grant', 'predicted-grant', 'configured-grant'];
-
 /** A built policy, with its grant front-end when it uses grants (the scheduler needs those). */
 export interface BuiltPolicy {
   readonly policy: AccessPolicy;
   readonly dynamic?: DynamicGrants;
   readonly configured?: ConfiguredGrants;
+}
+
+function timing(ctx: PolicyContext): { grantPeriod: number; grantDelay: number; tti: number } {
+  return { grantPeriod: ctx.uplink.grant_period, grantDelay: ctx.uplink.grant_delay, tti: ctx.uplink.tti };
 }
 
 export function createPolicy(params: AccessParams, ctx: PolicyContext): BuiltPolicy {
@@ -35,7 +37,7 @@ export function createPolicy(params: AccessParams, ctx: PolicyContext): BuiltPol
   switch (params.policy) {
     case 'random-grant': {
       const selector = new RandomSelector(ctx.streams.stream(`grants/${ctx.group}/random`), ctx.deviceCount);
-      const dynamic = new DynamicGrants(access, selector, ledger, params.grants_per_occasion ?? Infinity);
+      const dynamic = new DynamicGrants(access, selector, ledger, params.grants_per_occasion ?? Infinity, ctx.host.sim, ctx.group, timing(ctx));
       access.front = dynamic;
       return { policy: access, dynamic };
     }
@@ -49,7 +51,7 @@ export function createPolicy(params: AccessParams, ctx: PolicyContext): BuiltPol
         stream: (purpose) => ctx.streams.stream(`predict/${ctx.group}/${purpose}`),
         flag: (i, on) => access.flag(i, on),
       });
-      const dynamic = new DynamicGrants(access, new PredictorSelector(predictor), ledger, params.grants_per_occasion ?? Infinity);
+      const dynamic = new DynamicGrants(access, new PredictorSelector(predictor), ledger, params.grants_per_occasion ?? Infinity, ctx.host.sim, ctx.group, timing(ctx));
       access.front = dynamic;
       return { policy: access, dynamic };
     }
