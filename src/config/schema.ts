@@ -5,7 +5,7 @@
 import { z } from 'zod';
 import { accessSchema } from '../access/policies/registry.js';
 import { randomAccessSchema } from '../access/contention/params.js';
-import { metricNames } from '../metrics/catalogue.js';
+import { conditionsOf, DEFAULT_COMPARE_METRICS, metricDefinition, metricNames } from '../metrics/catalogue.js';
 import { trafficModel, trafficSchema } from '../traffic/registry.js';
 import { uplinkSchema } from '../access/grants/params.js';
 import { energySchema } from '../metrics/energy.js';
@@ -34,7 +34,7 @@ export const groupSchema = z
   })
   .describe('A group of devices sharing traffic model, access policy and deadline.');
 
-export const stoppingSchema = z
+const stoppingSchema = z
   .strictObject({
     metric: z.enum(metricNames as [string, ...string[]]).describe('Cell-level metric whose confidence interval decides when to stop.'),
     relative_precision: z
@@ -95,7 +95,7 @@ export const experimentSchema = z
         compare_metrics: z
           .array(z.enum(metricNames as [string, ...string[]]))
           .min(1)
-          .default(['throughput_per_s', 'delay_p95_ms', 'deadline_met_share', 'grants_wasted', 'energy_per_delivered_packet_mj'])
+          .default([...DEFAULT_COMPARE_METRICS])
           .describe('Metrics shown side by side when the experiment has several points.'),
         compare_groups: z
           .array(z.string())
@@ -139,6 +139,16 @@ export const experimentSchema = z
       ctx.addIssue({ code: 'custom', path: ['warmup'], message: 'warmup must be shorter than horizon' });
     }
     checkConfiguredGrants(e, ctx);
+    if (e.stopping !== undefined) {
+      const when = metricDefinition(e.stopping.metric)?.when;
+      if (when !== undefined && !when(conditionsOf(e))) {
+        ctx.addIssue({
+          code: 'custom',
+          path: ['stopping', 'metric'],
+          message: `'${e.stopping.metric}' is not reported for this experiment (it needs ${conditionText(e.stopping.metric)}), so the stopping rule could never be met`,
+        });
+      }
+    }
     (e.report.compare_groups ?? []).forEach((g, i) => {
       if (!(g in e.groups)) {
         ctx.addIssue({ code: 'custom', path: ['report', 'compare_groups', i], message: `no group named '${g}'; groups: ${Object.keys(e.groups).join(', ')}` });
@@ -146,6 +156,23 @@ export const experimentSchema = z
     });
   })
   .describe('A jostle experiment: a cell, its device groups, and how to replicate.');
+
+/** What a conditional metric needs, in words (for the stopping-rule check). */
+function conditionText(metric: string): string {
+  const probe = metricDefinition(metric)?.when;
+  if (probe === undefined) return 'nothing';
+  const none = { barring: false, anyDeadline: false, grants: false, predictors: false, fallback: false, horizon: false };
+  const words: Record<keyof typeof none, string> = {
+    barring: 'access class barring (cell.random_access.barring)',
+    anyDeadline: 'a group with a `deadline`',
+    grants: 'a group with a grant policy',
+    predictors: 'a group with `policy: predicted-grant`',
+    fallback: 'a grant policy with `fallback_after`',
+    horizon: 'a `horizon`',
+  };
+  const needed = (Object.keys(none) as (keyof typeof none)[]).filter((k) => probe({ ...none, [k]: true }));
+  return needed.map((k) => words[k]).join(' or ') || 'a condition this experiment does not meet';
+}
 
 /** Configured grants reserve capacity: every subframe must hold the reservations of all groups. */
 function checkConfiguredGrants(

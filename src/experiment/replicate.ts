@@ -7,7 +7,7 @@ import { Cell, type CellPlan, type GroupPlan } from '../access/cell.js';
 import { layoutPositionsFromCsv } from '../geometry/layout-files.js';
 import { resolveDataFile } from '../config/data-files.js';
 import type { ExperimentConfig } from '../config/schema.js';
-import { computeMetrics, type MetricValues } from '../metrics/catalogue.js';
+import { computeMetrics, conditionsOf, type MetricValues } from '../metrics/catalogue.js';
 import { cellTally, groupTally, type Tally } from '../metrics/tally.js';
 import type { AgeSummary } from '../metrics/age.js';
 import { replicationSeed, StreamSet } from '../random/index.js';
@@ -103,14 +103,9 @@ export function runReplication(
     singletonPreambles: ledger.singletonPreambles,
     collidedPreambles: ledger.collidedPreambles,
     usedPreambles: ledger.usedPreambles,
-    barring: plan.randomAccess.barring !== undefined,
-    anyDeadline: plan.groups.some((g) => Number.isFinite(g.deadline)),
     events: outcome.events,
     power: config.cell.energy,
-    grants: plan.groups.some((g) => g.access.policy !== 'contention'),
-    predictors: plan.groups.some((g) => g.access.policy === 'predicted-grant'),
-    fallback: plan.groups.some((g) => g.access.policy !== 'contention' && g.access.fallback_after !== undefined),
-    horizon: Number.isFinite(plan.horizon),
+    ...conditionsOf(config),
   });
   const groupQuantiles: Record<string, number[]> = {};
   for (const [name, t] of groups) groupQuantiles[name] = quantilesOf(t);

@@ -8,6 +8,29 @@
  */
 import type { CellContext, Tally } from './tally.js';
 
+/** What decides which metrics an experiment reports: known from its configuration alone. */
+export type MetricConditions = Pick<CellContext, 'barring' | 'anyDeadline' | 'grants' | 'predictors' | 'fallback' | 'horizon'>;
+
+/** The shape of a configuration that `conditionsOf` reads (an experiment config, or a point's). */
+interface ConditionSource {
+  readonly horizon?: number | undefined;
+  readonly cell: { readonly random_access: { readonly barring?: unknown } };
+  readonly groups: Readonly<Record<string, { readonly deadline?: number | undefined; readonly access: { readonly policy: string; readonly fallback_after?: number | undefined } }>>;
+}
+
+/** The metric conditions of a configuration. */
+export function conditionsOf(e: ConditionSource): MetricConditions {
+  const groups = Object.values(e.groups);
+  return {
+    barring: e.cell.random_access.barring !== undefined,
+    anyDeadline: groups.some((g) => g.deadline !== undefined && Number.isFinite(g.deadline)),
+    grants: groups.some((g) => g.access.policy !== 'contention'),
+    predictors: groups.some((g) => g.access.policy === 'predicted-grant'),
+    fallback: groups.some((g) => g.access.policy !== 'contention' && g.access.fallback_after !== undefined),
+    horizon: e.horizon !== undefined && Number.isFinite(e.horizon),
+  };
+}
+
 export type MetricScope = 'cell' | 'cell-and-groups';
 
 export interface MetricDefinition {
@@ -16,7 +39,7 @@ export interface MetricDefinition {
   readonly description: string;
   readonly scope: MetricScope;
   /** When present, the metric is reported only if this holds for the experiment. */
-  readonly when?: (c: CellContext) => boolean;
+  readonly when?: (c: MetricConditions) => boolean;
   value(t: Tally, c: CellContext): number;
 }
 
@@ -26,6 +49,23 @@ const perSecond = (x: number, c: CellContext): number => ratio(x, c.observationM
 const started = (t: Tally): number => t.arrived;
 
 const delayQuantile = (q: number) => (t: Tally): number => t.delay.quantile(q);
+
+/**
+ * q-quantile of the preamble transmissions of completed accesses that contended: the smallest k with
+ * P(K ≤ k) ≥ q, from the exact counts per k (no binning).
+ */
+const transmissionsQuantile = (q: number) => (t: Tally): number => {
+  const byTx = t.completedByTx;
+  let total = 0;
+  for (let k = 1; k < byTx.length; k++) total += byTx[k] as number;
+  if (total === 0) return Number.NaN;
+  let below = 0;
+  for (let k = 1; k < byTx.length; k++) {
+    below += byTx[k] as number;
+    if (below >= q * total) return k;
+  }
+  return byTx.length - 1;
+};
 
 export const metricCatalogue: readonly MetricDefinition[] = [
   {
@@ -82,7 +122,35 @@ export const metricCatalogue: readonly MetricDefinition[] = [
       return ratio(t.completedPreambleTx, n);
     },
   },
-  { name: 'delay_mean_ms', unit: 'ms', description: 'Access delay (arrival → delivery), mean over completed accesses.', scope: 'cell-and-groups', value: (t) => t.delay.mean() },
+  {
+    name: 'preamble_transmissions_p50',
+    unit: 'transmissions',
+    description: 'Preamble transmissions per completed access that contended, median (smallest k with P(K ≤ k) ≥ 0.5).',
+    scope: 'cell-and-groups',
+    value: transmissionsQuantile(0.5),
+  },
+  {
+    name: 'preamble_transmissions_p90',
+    unit: 'transmissions',
+    description: 'Preamble transmissions per completed access that contended, 90th percentile.',
+    scope: 'cell-and-groups',
+    value: transmissionsQuantile(0.9),
+  },
+  {
+    name: 'preamble_transmissions_p99',
+    unit: 'transmissions',
+    description: 'Preamble transmissions per completed access that contended, 99th percentile.',
+    scope: 'cell-and-groups',
+    value: transmissionsQuantile(0.99),
+  },
+  {
+    name: 'delay_mean_ms',
+    unit: 'ms',
+    description:
+      'Access delay (arrival → delivery; for generate-at-will traffic, from the start of the transmission that delivered the packet), mean over completed accesses.',
+    scope: 'cell-and-groups',
+    value: (t) => t.delay.mean(),
+  },
   { name: 'delay_p50_ms', unit: 'ms', description: 'Access delay, median.', scope: 'cell-and-groups', value: delayQuantile(0.5) },
   { name: 'delay_p90_ms', unit: 'ms', description: 'Access delay, 90th percentile.', scope: 'cell-and-groups', value: delayQuantile(0.9) },
   { name: 'delay_p95_ms', unit: 'ms', description: 'Access delay, 95th percentile.', scope: 'cell-and-groups', value: delayQuantile(0.95) },
@@ -284,8 +352,11 @@ export function metricDefinition(name: string): MetricDefinition | undefined {
 
 export const metricNames: readonly string[] = metricCatalogue.map((m) => m.name);
 
+/** Metrics compared side by side when an experiment has several points (`report.compare_metrics`). */
+export const DEFAULT_COMPARE_METRICS: readonly string[] = ['throughput_per_s', 'delay_p95_ms', 'deadline_met_share', 'grants_wasted', 'energy_per_delivered_packet_mj'];
+
 /** The metrics an experiment reports, in catalogue order. */
-export function activeMetrics(c: CellContext): MetricDefinition[] {
+export function activeMetrics(c: MetricConditions): MetricDefinition[] {
   return metricCatalogue.filter((m) => m.when === undefined || m.when(c));
 }
 

@@ -43,7 +43,16 @@ export function resultTable(result: ExperimentResult): string {
   const level = result.config.confidence_level;
   const out: string[] = [];
   for (const p of result.points) {
-    const why = p.stopCause === 'precision-reached' ? ' (precision reached)' : p.stopCause === 'max-replications' ? ' (stopped at max_replications)' : '';
+    const stopMetric = result.config.stopping?.metric;
+    const zeroMean = stopMetric !== undefined && p.summary.metrics[stopMetric]?.mean === 0;
+    const why =
+      p.stopCause === 'precision-reached'
+        ? ' (precision reached)'
+        : p.stopCause === 'max-replications'
+          ? zeroMean
+            ? ` (stopped at max_replications: ${stopMetric} was 0 in every replication, so its relative precision is undefined — stop on another metric)`
+            : ' (stopped at max_replications)'
+          : '';
     out.push(`point ${p.spec.index}${describeParameters(p)} · ${p.records.length} replications${why}`);
     out.push('cell');
     out.push(...rows(p.summary.metrics, (n) => !HIDDEN.has(n), level));

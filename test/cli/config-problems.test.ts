@@ -134,6 +134,16 @@ describe.concurrent('broken experiment files exit 2 with positioned problems', (
     expect(stderr).toContain('stopping');
   });
 
+  it('a stopping rule on a metric this experiment does not report is refused, naming what it needs', async () => {
+    // exact: grants_wasted is reported only when some group uses grants; a rule on it could never be met
+    const text = `experiment: bad\nstopping:\n  metric: grants_wasted\n  relative_precision: 0.1\n${GROUPS}`;
+    const { stderr, headers } = await runBroken('never.yaml', text);
+    expect(headers).toHaveLength(1);
+    expect(headers[0]!.line).toBe(3);
+    expect(headers[0]!.rest).toMatch(/^stopping\.metric: 'grants_wasted' is not reported/);
+    expect(stderr).toContain('a group with a grant policy');
+  });
+
   it('several problems in one file are all reported, in line order', async () => {
     // common practice: report every problem in one pass, in file order
     const text = [

@@ -68,6 +68,26 @@ groups:
     expect(metricOf(r, 'observation_time_s').mean).toBeCloseTo(0.18, 9);
   });
 
+  it('preamble transmissions of lone devices follow the power-ramping detection law (TR 37.868: p_k = 1 − e^(−k))', () => {
+    // Alone on its preamble, a device needs K transmissions with P(K > k) = Π_{i≤k} e^(−i) = e^(−k(k+1)/2):
+    // P(K ≤ 1) = 0.632, P(K ≤ 2) = 1 − e^(−3) = 0.950, P(K ≤ 3) = 1 − e^(−6) = 0.9975, so the median is 1,
+    // the 90th percentile 2 and the 99th 3; E[K] = Σ_k e^(−k(k−1)/2) = 1.4202.
+    const r = runYaml(
+      lone('    answers_per_subframe: unlimited\n    msg3: { error_probability: 0 }\n    msg4: { error_probability: 0 }\n', '100s').replace(
+        'count: 200',
+        'count: 2000',
+      ),
+    );
+    const mean = Array.from({ length: 12 }, (_, k) => Math.exp((-k * (k + 1)) / 2)).reduce((a, b) => a + b, 0);
+    expect(mean).toBeCloseTo(1.4202, 4);
+    const m = metricOf(r, 'mean_preamble_transmissions');
+    // 3 × 2000 accesses, sd of K ≈ 0.55: the 95 % interval of the mean is about ±0.02.
+    expect(Math.abs(m.mean - mean)).toBeLessThan(Math.max(m.half_width, 0.02));
+    expect(metricOf(r, 'preamble_transmissions_p50').mean).toBe(1);
+    expect(metricOf(r, 'preamble_transmissions_p90').mean).toBe(2);
+    expect(metricOf(r, 'preamble_transmissions_p99').mean).toBe(3);
+  });
+
   it('undetected or unanswered preambles fail at the end of the response window (3 + 5 = 8 ms)', () => {
     const yaml = `experiment: window
 seed: 810
