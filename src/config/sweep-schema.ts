@@ -27,7 +27,7 @@ const rangeSchema = z
   .refine((r) => r.step === undefined || (r.to - r.from) / r.step <= 10_000, { message: 'more than 10,000 values', path: ['step'] })
   .describe('A range of numbers.');
 
-export const axisSchema = z
+const axisSchema = z
   .strictObject({
     path: axisPath,
     values: z.array(z.unknown()).min(1).optional().describe('The values, each written as it would be at that path.'),

@@ -7,8 +7,8 @@ import { isSeq, type Node } from 'yaml';
 import type { Problem } from './problems.js';
 import { experimentSchema, type ExperimentConfig } from './schema.js';
 import { rangeValues, type SweepSpec } from './sweep-schema.js';
-import { validateSource } from './validate.js';
-import type { YamlSource } from './yaml-source.js';
+import { validateSource, type EditOrigin, type Edits } from './validate.js';
+import { positionOf, type YamlSource } from './yaml-source.js';
 
 export interface PointSpec {
   readonly index: number;
@@ -30,10 +30,30 @@ interface AxisValues {
 
 const MAX_POINTS = 100_000;
 
+const isPlainObject = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
+
 function describeValue(value: unknown): string {
   if (typeof value === 'string' || typeof value === 'number' || typeof value === 'boolean') return String(value);
-  const text = JSON.stringify(value);
-  return text.length > 40 ? `${text.slice(0, 37)}…` : text;
+  return JSON.stringify(value);
+}
+
+/**
+ * Labels for an axis without `labels`: path=value. Maps are shown by the keys in which the axis's
+ * values differ (`access={"fallback_after":"20ms"}`), so that labels stay short and distinct; values
+ * that still read alike get their position appended (`#2`), so no two points share a label.
+ */
+function autoLabels(path: string, values: readonly unknown[]): string[] {
+  const short = path.split('.').slice(-2).join('.');
+  let shown: readonly unknown[] = values;
+  if (values.length > 1 && values.every(isPlainObject)) {
+    const keys = [...new Set(values.flatMap((v) => Object.keys(v)))];
+    const differing = keys.filter((k) => new Set(values.map((v) => JSON.stringify(v[k]))).size > 1);
+    shown = values.map((v) => Object.fromEntries(differing.filter((k) => k in v).map((k) => [k, v[k]])));
+  }
+  const labels = shown.map((v) => `${short}=${describeValue(v)}`);
+  const count = new Map<string, number>();
+  for (const l of labels) count.set(l, (count.get(l) ?? 0) + 1);
+  return labels.map((l, i) => ((count.get(l) ?? 0) > 1 ? `${l} #${i + 1}` : l));
 }
 
 function axisValues(source: YamlSource, sweep: SweepSpec, a: number): AxisValues {
@@ -46,8 +66,31 @@ function axisValues(source: YamlSource, sweep: SweepSpec, a: number): AxisValues
     nodes = rangeValues(axis.range!).map((v) => source.doc.createNode(v) as Node);
   }
   const values = nodes.map((n) => n.toJSON() as unknown);
-  const labels = axis.labels ?? values.map((v) => `${axis.path.split('.').slice(-2).join('.')}=${describeValue(v)}`);
+  const labels = axis.labels ?? autoLabels(axis.path, values);
   return { path: axis.path, nodes, values, labels, named: axis.labels !== undefined };
+}
+
+/**
+ * Edits of one point: the command-line ones, plus each file axis's path with the position of the
+ * value written there — a path whose parents are not in the file has no position of its own.
+ */
+function pointEdits(source: YamlSource, axes: readonly AxisValues[], tuple: readonly number[], edits: Edits): Edits {
+  const out = new Map<string, EditOrigin>();
+  tuple.forEach((v, a) => {
+    const axis = axes[a]!;
+    const at = positionOfNode(source, axis.nodes[v]!);
+    if (at !== null && !edits.has(axis.path)) out.set(axis.path, at);
+  });
+  for (const [k, o] of edits) out.set(k, o);
+  return out;
+}
+
+/** 1-based position of a node that came from the file, or null for a created one. */
+function positionOfNode(source: YamlSource, node: Node): { line: number; column: number } | null {
+  const start = node.range?.[0];
+  if (start === undefined) return null;
+  const { line, col } = source.lines.linePos(start);
+  return { line, column: col };
 }
 
 /** Index tuples of the points, first axis slowest. */
@@ -70,7 +113,7 @@ function keysFor(doc: YamlSource['doc'], path: string): (string | number)[] {
 
 export type SweepResult = { ok: true; points: PointSpec[] } | { ok: false; problems: Problem[] };
 
-export function expandSweep(source: YamlSource, base: ExperimentConfig, overridden?: ReadonlyMap<string, string>): SweepResult {
+export function expandSweep(source: YamlSource, base: ExperimentConfig, overridden: Edits = new Map()): SweepResult {
   const sweep = base.sweep;
   if (sweep === undefined) return { ok: true, points: [{ index: 0, parameters: {}, label: 'base', config: base }] };
   const axes = sweep.axes.map((_, a) => axisValues(source, sweep, a));
@@ -81,11 +124,32 @@ export function expandSweep(source: YamlSource, base: ExperimentConfig, overridd
       problems: [{ code: 'invalid-value', file: source.file, line: null, column: null, path: 'sweep.axes', message: `zipped axes must have the same number of values (found ${sizes.join(', ')})` }],
     };
   }
+  for (const [a, axis] of axes.entries()) {
+    // Checked here for range axes, whose values are known only now (lists are checked by the schema).
+    if (axis.named && axis.labels.length !== axis.values.length) {
+      const at = positionOf(source, ['sweep', 'axes', a, 'labels']);
+      return {
+        ok: false,
+        problems: [
+          {
+            code: 'invalid-value',
+            file: source.file,
+            line: at?.line ?? null,
+            column: at?.column ?? null,
+            path: `sweep.axes.${a}.labels`,
+            message: `labels must have one entry per value: ${axis.labels.length} labels for ${axis.values.length} values`,
+          },
+        ],
+      };
+    }
+  }
+  // Count before building: a grid of large axes must be refused, not expanded.
+  const count = sweep.combine === 'zip' ? (sizes[0] ?? 0) : sizes.reduce((n, s) => n * s, 1);
+  if (count > MAX_POINTS) {
+    return { ok: false, problems: [{ code: 'invalid-value', file: source.file, line: null, column: null, path: 'sweep', message: `the sweep has ${count} points; at most ${MAX_POINTS}` }] };
+  }
   const tuples = combinations(sizes, sweep.combine);
   const anyNamed = axes.some((a) => a.named);
-  if (tuples.length > MAX_POINTS) {
-    return { ok: false, problems: [{ code: 'invalid-value', file: source.file, line: null, column: null, path: 'sweep', message: `the sweep has ${tuples.length} points; at most ${MAX_POINTS}` }] };
-  }
   const points: PointSpec[] = [];
   const problems = new Map<string, Problem>();
   tuples.forEach((tuple, index) => {
@@ -99,7 +163,7 @@ export function expandSweep(source: YamlSource, base: ExperimentConfig, overridd
       // In a grid every axis names its value; zipped axes move together, so named ones suffice.
       if (axis.named || !anyNamed || sweep.combine === 'grid') labels.push(axis.labels[v]!);
     });
-    const checked = validateSource({ ...source, doc }, experimentSchema, overridden);
+    const checked = validateSource({ ...source, doc }, experimentSchema, pointEdits(source, axes, tuple, overridden));
     if (!checked.ok) {
       for (const p of checked.problems) {
         const key = `${p.code}|${p.line}|${p.column}|${p.path}|${p.message}`;

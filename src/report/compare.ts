@@ -5,21 +5,10 @@
  */
 import type { ExperimentResult } from '../experiment/run.js';
 import type { Summary } from '../stats/index.js';
-import { withInterval } from './numbers.js';
+import { DEFAULT_COMPARE_METRICS } from '../metrics/catalogue.js';
+import { intervalText } from './numbers.js';
 
-export const DEFAULT_COMPARE_METRICS = [
-  'throughput_per_s',
-  'delay_p95_ms',
-  'deadline_met_share',
-  'grants_wasted',
-  'energy_per_delivered_packet_mj',
-] as const;
-
-function cellText(s: Summary | undefined): string {
-  if (s === undefined || s.n === 0) return '—';
-  const f = withInterval(s.mean, s.half_width);
-  return f.halfWidth === '' || f.halfWidth === 'n/a' ? f.mean : `${f.mean} ± ${f.halfWidth}`;
-}
+const cellText = (s: Summary | undefined): string => (s === undefined || s.n === 0 ? '—' : intervalText(s.mean, s.half_width));
 
 function table(title: string, rows: Array<{ label: string; metrics: Record<string, Summary> | undefined }>, metrics: readonly string[]): string[] {
   const shown = metrics.filter((m) => rows.some((r) => (r.metrics?.[m]?.n ?? 0) > 0));

@@ -1,7 +1,7 @@
 /** Number formatting for people: a mean is shown to the precision its confidence interval supports. */
 
 /** Decimal places that show `halfWidth` with two significant digits (0 … 10). */
-export function decimalsFor(halfWidth: number): number {
+function decimalsFor(halfWidth: number): number {
   if (!Number.isFinite(halfWidth) || halfWidth <= 0) return -1;
   const d = 1 - Math.floor(Math.log10(halfWidth));
   return Math.min(10, Math.max(0, d));
@@ -24,4 +24,11 @@ export function withInterval(mean: number, halfWidth: number): { mean: string; h
   const d = halfWidth <= 1e-9 * Math.abs(mean) ? -1 : decimalsFor(halfWidth);
   if (d < 0) return { mean: significant(mean), halfWidth: Number.isFinite(halfWidth) ? '0' : 'n/a' };
   return { mean: mean.toFixed(d), halfWidth: halfWidth.toFixed(d) };
+}
+
+/** "mean ± half-width" as one text; "—" for no value; the mean alone when there is no interval. */
+export function intervalText(mean: number | null | undefined, halfWidth: number | null | undefined): string {
+  if (mean === null || mean === undefined) return '—';
+  const f = withInterval(mean, halfWidth ?? Number.NaN);
+  return f.halfWidth === '' || f.halfWidth === 'n/a' ? f.mean : `${f.mean} ± ${f.halfWidth}`;
 }

@@ -1,6 +1,6 @@
 /**
- * Writing the files of a finished run (or merge): summary.json, replications.csv, points.csv and,
- * for experiments with a sweep, the plots and report.html. Every file is written atomically.
+ * Writing the files of a finished run (or merge): summary.json, replications.csv, points.csv,
+ * report.html and, for experiments with a sweep, plots/. Every file is written atomically.
  */
 import { join } from 'node:path';
 import type { ExperimentResult } from '../experiment/run.js';

@@ -47,7 +47,7 @@ export interface SummaryDoc {
   readonly points: readonly PointDoc[];
 }
 
-export const DEFAULT_PLOT_METRICS = [
+const DEFAULT_PLOT_METRICS = [
   'access_success_probability',
   'deadline_met_share',
   'delay_mean_ms',
@@ -193,15 +193,17 @@ function againstTwoAxes(doc: SummaryDoc, x: Axis, by: Axis, metric: string, grou
 
 /** Metric per point label (categorical sweeps): points with error bars, cell and groups. */
 function perCategory(doc: SummaryDoc, axis: Axis | null, metric: string): Figure | null {
+  // Without a single axis the categories are the points themselves (by index: labels may repeat).
   const categories = axis === null ? doc.points.map((p) => p.label) : axis.categories;
-  const pick = (c: string): PointDoc | undefined => doc.points.find((p) => (axis === null ? p.label : axis.category(p)) === c);
+  const chosen: (PointDoc | undefined)[] = axis === null ? [...doc.points] : categories.map((c) => doc.points.find((p) => axis.category(p) === c));
+  const pick = (_c: string, i: number): PointDoc | undefined => chosen[i];
   const groupNames = Object.keys(doc.points[0]?.groups ?? {});
   const value = (s: Stat | undefined): { y: number; low?: number; high?: number } | null => {
     const p = point(s, 0, isShare(metric));
     return p === null ? null : p.low === undefined || p.high === undefined ? { y: p.y } : { y: p.y, low: p.low, high: p.high };
   };
-  const series = [{ name: 'cell', values: categories.map((c) => value(pick(c)?.metrics[metric])) }];
-  if (groupNames.length > 1) for (const g of groupNames) series.push({ name: g, values: categories.map((c) => value(pick(c)?.groups[g]?.metrics[metric])) });
+  const series = [{ name: 'cell', values: categories.map((c, i) => value(pick(c, i)?.metrics[metric])) }];
+  if (groupNames.length > 1) for (const g of groupNames) series.push({ name: g, values: categories.map((c, i) => value(pick(c, i)?.groups[g]?.metrics[metric])) });
   if (series.every((s) => s.values.every((v) => v === null))) return null;
   const title = `${metric} by ${axis?.path ?? 'point'}`;
   return {

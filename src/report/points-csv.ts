@@ -4,9 +4,8 @@
  */
 import type { ExperimentResult } from '../experiment/run.js';
 import type { Summary } from '../stats/index.js';
-import { csvEscape } from './csv.js';
+import { csvEscape, csvNumber as number, groupedColumns } from './csv.js';
 
-const number = (x: number): string => (Number.isFinite(x) ? String(x) : '');
 
 function parameterText(value: unknown): string {
   if (value === undefined) return '';
@@ -16,11 +15,12 @@ function parameterText(value: unknown): string {
 
 export function pointsCsv(result: ExperimentResult): string {
   const points = result.points;
-  const first = points[0];
-  if (first === undefined) return '';
+  if (points.length === 0) return '';
   const paths = [...new Set(points.flatMap((p) => Object.keys(p.spec.parameters)))];
-  const cellMetrics = Object.keys(first.summary.metrics);
-  const groupMetrics = Object.entries(first.summary.groups).map(([g, v]) => [g, Object.keys(v.metrics)] as const);
+  // Columns from every point: metrics that apply only to some points (grants, predictors) are empty elsewhere.
+  const { cell: cellMetrics, groups: groupMetrics } = groupedColumns(
+    points.map((p) => ({ metrics: p.summary.metrics, groups: Object.fromEntries(Object.entries(p.summary.groups).map(([g, v]) => [g, v.metrics])) })),
+  );
   const header = ['point', 'label', ...paths, 'replications'];
   const stats = (name: string): string[] => [`${name}_mean`, `${name}_half_width`, `${name}_n`];
   for (const m of cellMetrics) header.push(...stats(m));

@@ -2,15 +2,15 @@
  * plots/*.svg and report.html from a summary document: the same code draws them at the end of a run
  * and in `jostle plot DIR` from saved results.
  */
-import { readdirSync, rmSync } from 'node:fs';
+import { rmSync } from 'node:fs';
 import { join } from 'node:path';
 import { stringify } from 'yaml';
 import { writeFileAtomic } from './files.js';
 import { reportHtml, tableHtml } from './html.js';
-import { withInterval } from './numbers.js';
+import { DEFAULT_COMPARE_METRICS } from '../metrics/catalogue.js';
+import { intervalText } from './numbers.js';
 import { figuresOf, type SummaryDoc } from './plots.js';
 
-const DEFAULT_COMPARE = ['throughput_per_s', 'delay_p95_ms', 'deadline_met_share', 'grants_wasted', 'energy_per_delivered_packet_mj'];
 
 export interface FullSummaryDoc extends SummaryDoc {
   readonly tool: { readonly name: string; readonly version: string };
@@ -18,14 +18,10 @@ export interface FullSummaryDoc extends SummaryDoc {
   readonly config: SummaryDoc['config'] & { readonly report?: { readonly compare_metrics?: string[]; readonly plot_metrics?: string[] } };
 }
 
-function statText(s: { mean: number | null; half_width: number | null } | undefined): string {
-  if (s === undefined || s.mean === null) return '—';
-  const f = withInterval(s.mean, s.half_width ?? Number.NaN);
-  return f.halfWidth === '' || f.halfWidth === 'n/a' ? f.mean : `${f.mean} ± ${f.halfWidth}`;
-}
+const statText = (s: { mean: number | null; half_width: number | null } | undefined): string => intervalText(s?.mean, s?.half_width);
 
 function resultsTable(doc: FullSummaryDoc): string {
-  const metrics = (doc.config.report?.compare_metrics ?? DEFAULT_COMPARE).filter((m) => doc.points.some((p) => p.metrics[m] !== undefined));
+  const metrics = (doc.config.report?.compare_metrics ?? DEFAULT_COMPARE_METRICS).filter((m) => doc.points.some((p) => p.metrics[m] !== undefined));
   const header = ['point', ...metrics];
   const rows = doc.points.map((p) => [p.label, ...metrics.map((m) => statText(p.metrics[m]))]);
   return tableHtml(header, rows, `Cell-level mean ± ${Math.round(doc.confidence_level * 1000) / 10} % half-width over replications.`);
@@ -60,13 +56,4 @@ export function writePlotsAndReport(outDir: string, doc: FullSummaryDoc): string
   writeFileAtomic(join(outDir, 'report.html'), html);
   files.push('report.html');
   return files;
-}
-
-/** Plot files currently in a result folder (for messages). */
-export function plotFiles(outDir: string): string[] {
-  try {
-    return readdirSync(join(outDir, 'plots')).sort();
-  } catch {
-    return [];
-  }
 }

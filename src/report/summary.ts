@@ -17,7 +17,7 @@ export interface MetricEntry {
 
 const finite = (x: number): number | null => (Number.isFinite(x) ? x : null);
 
-export function metricEntry(s: Summary): MetricEntry {
+function metricEntry(s: Summary): MetricEntry {
   return { mean: finite(s.mean), half_width: finite(s.half_width), std: finite(s.std), n: s.n };
 }
 

@@ -90,6 +90,52 @@ describe('sweep expansion', () => {
     expect(both.ok).toBe(false);
   });
 
+  it('labels of a range axis are checked once the range is known, at the labels line', () => {
+    const r = load(`${base}sweep:
+  axes:
+    - path: groups.mtc.count
+      range: { from: 10, to: 30, count: 3 }
+      labels: [a]
+`);
+    expect(r.ok).toBe(false);
+    if (r.ok) return;
+    expect(r.problems[0]?.path).toBe('sweep.axes.0.labels');
+    expect(r.problems[0]?.line).toBe(11);
+    expect(r.problems[0]?.message).toMatch(/1 labels for 3 values/);
+  });
+
+  it('automatic labels of map values show the keys that differ, and never repeat', () => {
+    const r = load(`${base}horizon: 1s
+sweep:
+  axes:
+    - path: groups.mtc.access
+      values:
+        - { policy: random-grant, grants_per_occasion: 4, fallback_after: 20ms }
+        - { policy: random-grant, grants_per_occasion: 4, fallback_after: 200ms }
+    - path: groups.mtc.count
+      values: [10, 10]
+`);
+    expect(r.ok).toBe(true);
+    if (!r.ok) return;
+    expect(r.points.map((p) => p.label)).toEqual([
+      'mtc.access={"fallback_after":"20ms"}, mtc.count=10 #1',
+      'mtc.access={"fallback_after":"20ms"}, mtc.count=10 #2',
+      'mtc.access={"fallback_after":"200ms"}, mtc.count=10 #1',
+      'mtc.access={"fallback_after":"200ms"}, mtc.count=10 #2',
+    ]);
+  });
+
+  it('a grid of more than 100,000 points is refused before it is built', () => {
+    const r = load(`${base}sweep:
+  axes:
+    - { path: groups.mtc.count, range: { from: 1, to: 10000, count: 10000 } }
+    - { path: seed, range: { from: 1, to: 10000, count: 10000 } }
+`);
+    expect(r.ok).toBe(false);
+    if (r.ok) return;
+    expect(r.problems[0]?.message).toBe('the sweep has 100000000 points; at most 100000');
+  });
+
   it('ranges: linear by count or step, log by count, integers deduplicated', () => {
     expect(rangeValues({ from: 1000, to: 5000, count: 5, scale: 'linear', integer: false })).toEqual([1000, 2000, 3000, 4000, 5000]);
     expect(rangeValues({ from: 0.1, to: 0.5, step: 0.1, scale: 'linear', integer: false })).toEqual([0.1, 0.2, 0.3, 0.4, 0.5]);

@@ -54,8 +54,26 @@ describe('figures of a sweep', () => {
   it('a categorical axis gives points with error bars per category', () => {
     const figures = figuresOf(doc([{ path: 'groups.a.access', labels: ['contention', 'grants'] }], 'grid', [{ 'groups.a.access': { policy: 'contention' } }, { 'groups.a.access': { policy: 'random-grant' } }]));
     const svg = figures.find((f) => f.file === 'delay_mean_ms.svg')?.svg ?? '';
-    expect(svg).toContain('p0');
+    // Categories are named by the point labels (the axis labels, in a real run).
+    expect(svg).toContain('>p0<');
+    expect(svg).toContain('>p1<');
     expect(svg).toContain('role="img"');
+  });
+
+  it('categories are points, not labels: two points that read alike are drawn at their own values', () => {
+    // Two zipped axes (no single axis to name categories by); both points labelled alike, cell means 20 and 30.
+    const d: SummaryDoc = {
+      ...doc([{ path: 'a' }, { path: 'b' }], 'zip', [
+        { a: { p: 1 }, b: { q: 1 } },
+        { a: { p: 2 }, b: { q: 2 } },
+      ]),
+    };
+    const points = d.points.map((p, i) => ({ ...p, label: 'same', metrics: { delay_mean_ms: stat(20 + 10 * i) }, groups: {} }));
+    const svg = figuresOf({ ...d, points }).find((f) => f.file === 'delay_mean_ms.svg')?.svg ?? '';
+    const ys = [...svg.matchAll(/<circle [^>]*cy="([0-9.]+)"/g)].map((m) => Number(m[1]));
+    expect(ys).toHaveLength(2);
+    // Larger values sit higher (smaller y): the second point is drawn above the first.
+    expect(ys[1]).toBeLessThan(ys[0] as number);
   });
 
   it('no sweep, no figures', () => {
