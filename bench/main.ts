@@ -110,7 +110,9 @@ async function main(): Promise<void> {
     results,
   };
   const json = `${JSON.stringify(document, null, 2)}\n`;
-  const out = join(repoRoot(), 'results', 'bench', 'latest.json');
+  // Only a run of every case replaces the kept baseline; a subset goes next to it.
+  const all = args.ids.length === cases.length + 1;
+  const out = join(repoRoot(), 'results', 'bench', all ? 'latest.json' : 'subset.json');
   writeFileAtomic(out, json);
   if (args.json) {
     process.stdout.write(json);

@@ -14,11 +14,13 @@ function render(line: CheckLine): string {
 
 export function checkCommand(o: { only: readonly string[]; list: boolean }): number {
   const selected = checkCases.filter((c) => o.only.length === 0 || o.only.some((prefix) => c.id.startsWith(prefix)));
-  if (selected.length === 0) {
-    throw new UserFacingError(`no check case matches ${o.only.join(', ')}; cases: ${checkCases.map((c) => c.id).join(', ')}`, EXIT_USAGE);
+  const unmatched = o.only.filter((prefix) => !checkCases.some((c) => c.id.startsWith(prefix)));
+  if (unmatched.length > 0) {
+    throw new UserFacingError(`no check case matches ${unmatched.join(', ')}; cases: ${checkCases.map((c) => c.id).join(', ')}`, EXIT_USAGE);
   }
   if (o.list) {
-    for (const c of selected) process.stdout.write(`${c.id.padEnd(24)} ${c.title}\n`);
+    const width = Math.max(...selected.map((c) => c.id.length));
+    for (const c of selected) process.stdout.write(`${c.id.padEnd(width)}  ${c.title}\n`);
     return EXIT_OK;
   }
   process.stdout.write(

@@ -9,15 +9,20 @@ import { join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { SCRIPT_FILES, slurmScripts, slurmSpecProblems, type SlurmJobSpec, type SlurmResources } from '../cluster/slurm.js';
 import { slurmOptionProblems } from '../cluster/slurm-options.js';
-import { replicationRule } from '../experiment/plan.js';
+import { replicationRule, withReplications } from '../experiment/plan.js';
 import { EXIT_FAILED, EXIT_OK, EXIT_USAGE, UserFacingError } from './exit.js';
 import { loadOrFail } from './load-or-fail.js';
+import { seedValue } from './seed.js';
 
 export interface ClusterCommandOptions {
   readonly scheduler: string;
   readonly file: string;
   readonly shards: number;
   readonly sets: readonly string[];
+  readonly vary: readonly string[];
+  readonly combine?: 'grid' | 'zip';
+  readonly reps?: number;
+  readonly seed?: string;
   readonly resources: SlurmResources;
   readonly out?: string;
   readonly submit: boolean;
@@ -25,7 +30,7 @@ export interface ClusterCommandOptions {
 }
 
 /** Absolute path of this install's bin/jostle.js (from src/cli/ or dist/src/cli/). */
-export function jostleEntry(): string {
+function jostleEntry(): string {
   for (const relative of ['../../bin/jostle.js', '../../../bin/jostle.js']) {
     const path = fileURLToPath(new URL(relative, import.meta.url));
     if (existsSync(path)) return path;
@@ -43,8 +48,9 @@ export function clusterCommand(o: ClusterCommandOptions): number {
   if (o.scheduler !== 'slurm') throw new UserFacingError(`unknown scheduler '${o.scheduler}'; supported: slurm`, EXIT_USAGE);
   const early = slurmOptionProblems(o.shards, o.resources);
   if (early.length > 0) throw new UserFacingError(early.join('\n'), EXIT_USAGE);
-  const loaded = loadOrFail(o.file, o.sets);
-  const units = shardUnits(loaded.points.length, replicationRule(loaded.config));
+  const sets = o.seed === undefined ? o.sets : [...o.sets, `seed=${seedValue(o.seed)}`];
+  const loaded = loadOrFail(o.file, { sets, vary: o.vary, ...(o.combine === undefined ? {} : { combine: o.combine }) });
+  const units = shardUnits(loaded.points.length, replicationRule(o.reps === undefined ? loaded.config : withReplications(loaded.config, o.reps)));
   if (o.shards > units.count) {
     throw new UserFacingError(`--shards ${o.shards} is more than the ${units.count} independent tasks of this experiment (${units.what}); use --shards ${units.count} or fewer`, EXIT_USAGE);
   }
@@ -56,7 +62,13 @@ export function clusterCommand(o: ClusterCommandOptions): number {
     jostle: jostleEntry(),
     experimentFile: resolve(o.file),
     outDir,
-    sets: o.sets,
+    runArgs: [
+      ...o.sets.map((item) => ['--set', item] as const),
+      ...o.vary.map((item) => ['--vary', item] as const),
+      ...(o.combine === undefined ? [] : [['--combine', o.combine] as const]),
+      ...(o.reps === undefined ? [] : [['--reps', String(o.reps)] as const]),
+      ...(o.seed === undefined ? [] : [['--seed', o.seed] as const]),
+    ],
     resources: o.resources,
   };
   const problems = slurmSpecProblems(spec);

@@ -141,6 +141,10 @@ export async function main(argv: string[]): Promise<void> {
           .option('account', { type: 'string', describe: 'Account to charge (--account)' })
           .option('sbatch', { type: 'string', array: true, default: [] as string[], describe: 'Extra #SBATCH option line, e.g. --sbatch=--qos=long (repeatable)' })
           .option('set', setOption)
+          .option('vary', { type: 'string', array: true, default: [] as string[], describe: 'Add or replace a sweep axis (as for run); passed to every shard' })
+          .option('combine', { choices: ['grid', 'zip'] as const, describe: 'How sweep axes combine (as for run)' })
+          .option('reps', { type: 'number', describe: 'Replications per point (as for run)' })
+          .option('seed', { type: 'string', describe: 'Root seed (as for run)' })
           .option('submit', { type: 'boolean', default: false, describe: 'Submit the jobs (runs OUT/cluster/submit.sh)' })
           .option('wait', { type: 'boolean', default: false, describe: 'Submit and wait until the merged results are written (implies --submit)' }),
       async (a) => {
@@ -151,6 +155,10 @@ export async function main(argv: string[]): Promise<void> {
             file: a.file,
             shards: a.shards,
             sets: a.set,
+            vary: a.vary,
+            ...(a.combine === undefined ? {} : { combine: a.combine }),
+            ...(a.reps === undefined ? {} : { reps: a.reps }),
+            ...(a.seed === undefined ? {} : { seed: a.seed }),
             submit: a.submit,
             wait: a.wait,
             ...(a.out === undefined ? {} : { out: a.out }),
@@ -180,6 +188,14 @@ export async function main(argv: string[]): Promise<void> {
       process.exit(EXIT_USAGE);
     })
     .parseAsync();
+}
+
+// A reader that stops early (`jostle schema | head`) closes the pipe: that is not an error.
+for (const stream of [process.stdout, process.stderr]) {
+  stream.on('error', (error: NodeJS.ErrnoException) => {
+    if (error.code === 'EPIPE') process.exit(process.exitCode ?? 0);
+    throw error;
+  });
 }
 
 await main(hideBin(process.argv));

@@ -18,7 +18,7 @@ function clock(seconds: number): string {
   return h > 0 ? `${h}:${String(m).padStart(2, '0')}:${rest}` : `${m}:${rest}`;
 }
 
-export function describeProgress(done: number, total: number | null, elapsedSeconds: number, width = 24): string {
+function describeProgress(done: number, total: number | null, elapsedSeconds: number, width = 24): string {
   const rate = elapsedSeconds > 0 ? done / elapsedSeconds : 0;
   const rateText = `${rate >= 10 ? rate.toFixed(0) : rate.toFixed(1)}/s`;
   if (total === null || total === 0) return `${done} replications · ${rateText}`;

@@ -14,6 +14,7 @@ import { writeRunOutputs } from '../report/outputs.js';
 import { resultTable } from '../report/table.js';
 import { EXIT_FAILED, EXIT_OK, EXIT_USAGE, UserFacingError } from './exit.js';
 import { loadOrFail } from './load-or-fail.js';
+import { seedValue } from './seed.js';
 import { createProgress } from './progress.js';
 
 export interface RunCommandOptions {
@@ -33,7 +34,7 @@ export interface RunCommandOptions {
 
 export const EXIT_INTERRUPTED = 130;
 
-export function parseShard(text: string): Shard {
+function parseShard(text: string): Shard {
   const m = /^(\d+)\/(\d+)$/.exec(text.trim());
   const index = Number(m?.[1]);
   const count = Number(m?.[2]);
@@ -43,8 +44,9 @@ export function parseShard(text: string): Shard {
   return { index, count };
 }
 
+
 export async function runCommand(o: RunCommandOptions): Promise<number> {
-  const sets = o.seed === undefined ? o.sets : [...o.sets, `seed=${o.seed}`];
+  const sets = o.seed === undefined ? o.sets : [...o.sets, `seed=${seedValue(o.seed)}`];
   const loaded = loadOrFail(o.file, { sets, vary: o.vary, ...(o.combine === undefined ? {} : { combine: o.combine }) });
   const config = o.reps === undefined ? loaded.config : withReplications(loaded.config, o.reps);
   const points = o.reps === undefined ? loaded.points : pointsWithReplications(loaded.points, o.reps);
@@ -103,6 +105,8 @@ export async function runCommand(o: RunCommandOptions): Promise<number> {
 
 /** A new journal, or the one to resume; refuses to silently discard an interrupted run. */
 function openJournal(outDir: string, manifest: ReturnType<typeof newManifest>, o: RunCommandOptions): Journal {
+  // --restart discards whatever is there, readable or not.
+  if (o.restart && !o.resume) return Journal.fresh(outDir, manifest);
   const existing = readManifest(outDir);
   if (o.resume) {
     if (existing === undefined) throw new UserFacingError(`nothing to resume: ${outDir} holds no journal of an earlier run`, EXIT_USAGE);
@@ -112,6 +116,9 @@ function openJournal(outDir: string, manifest: ReturnType<typeof newManifest>, o
         EXIT_USAGE,
       );
     }
+    const was = existing.shard === null ? 'a whole run' : `shard ${existing.shard.index}/${existing.shard.count}`;
+    const now = manifest.shard === null ? 'a whole run' : `shard ${manifest.shard.index}/${manifest.shard.count}`;
+    if (was !== now) throw new UserFacingError(`the journal in ${outDir} is ${was}, but this command runs ${now}: resume it with the same --shard`, EXIT_USAGE);
     return Journal.resume(outDir, manifest);
   }
   if (existing !== undefined && !existing.complete && !o.restart) {
@@ -124,4 +131,3 @@ function openJournal(outDir: string, manifest: ReturnType<typeof newManifest>, o
   return Journal.fresh(outDir, manifest);
 }
 
-export { replicationRule };

@@ -4,7 +4,7 @@
  */
 
 /** Edit distance with insertions, deletions, substitutions and adjacent transpositions. */
-export function editDistance(a: string, b: string): number {
+function editDistance(a: string, b: string): number {
   const n = a.length;
   const m = b.length;
   const width = m + 1;
@@ -25,7 +25,7 @@ export function editDistance(a: string, b: string): number {
 }
 
 /** Largest distance accepted for a word of this length: 1 up to 5 characters, 2 up to 8, then 3. */
-export function maxDistanceFor(length: number): number {
+function maxDistanceFor(length: number): number {
   if (length <= 5) return 1;
   return length <= 8 ? 2 : 3;
 }

@@ -3,6 +3,7 @@
  * experiment file and checked when the experiment is loaded, so that a bad file is reported with its
  * own line numbers before anything runs.
  */
+import { readFileSync } from 'node:fs';
 import { isAbsolute, resolve } from 'node:path';
 import { readLayoutCsv } from '../geometry/layout-csv.js';
 import { readTraceCsv } from '../traffic/trace.js';
@@ -40,4 +41,25 @@ export function checkDataFiles(configs: readonly ExperimentConfig[], baseDir: st
     }
   }
   return problems;
+}
+
+/**
+ * The contents of every data file the configs name, in a fixed order (for the run fingerprint: a
+ * file changed between an interrupted run and its resumption, or between shards, changes the run).
+ */
+export function dataFileContents(configs: readonly ExperimentConfig[], baseDir: string): string[] {
+  const paths = new Set<string>();
+  for (const config of configs) {
+    for (const g of Object.values(config.groups)) {
+      if (g.layout.model === 'csv') paths.add(resolveDataFile(baseDir, g.layout.file));
+      if (g.traffic.model === 'trace') paths.add(resolveDataFile(baseDir, g.traffic.file));
+    }
+  }
+  return [...paths].sort().flatMap((path) => {
+    try {
+      return [readFileSync(path, 'utf8')];
+    } catch {
+      return ['(unreadable)'];
+    }
+  });
 }

@@ -37,15 +37,27 @@ export interface TerminalEdits {
 function finish(parsed: { ok: true; source: YamlSource } | { ok: false; problems: Problem[] }, edits: TerminalEdits, baseDir: string): LoadResult {
   if (!parsed.ok) return { ok: false, problems: parsed.problems, sources: new Map() };
   const sources = new Map([[parsed.source.file, parsed.source.text]]);
-  const overridden = applyOverrides(parsed.source, edits.sets ?? []);
-  if (!overridden.ok) return { ok: false, problems: overridden.problems, sources };
-  const varied = applyVary(overridden.source, edits.vary ?? [], edits.combine);
-  if (!varied.ok) return { ok: false, problems: varied.problems, sources };
-  const validated = validateSource(varied.source, experimentSchema, overridden.overridden);
-  if (!validated.ok) return { ok: false, problems: validated.problems, sources };
+  // A malformed --set or --vary item is reported, and the rest is still checked without it, so that
+  // one typo on the command line does not hide the file's own problems.
+  const early: Problem[] = [];
+  const withoutBad = (items: readonly string[], problems: readonly Problem[]): string[] => {
+    early.push(...problems);
+    const failed = new Set(problems.map((p) => p.found));
+    return items.filter((item) => !failed.has(item));
+  };
+  let overridden = applyOverrides(parsed.source, edits.sets ?? []);
+  if (!overridden.ok) overridden = applyOverrides(parsed.source, withoutBad(edits.sets ?? [], overridden.problems));
+  if (!overridden.ok) return { ok: false, problems: early, sources };
+  let varied = applyVary(overridden.source, edits.vary ?? [], edits.combine);
+  if (!varied.ok) varied = applyVary(overridden.source, withoutBad(edits.vary ?? [], varied.problems), edits.combine);
+  if (!varied.ok) return { ok: false, problems: early, sources };
+  const origins = new Map([...overridden.overridden, ...varied.edits]);
+  const validated = validateSource(varied.source, experimentSchema, origins);
+  if (!validated.ok) return { ok: false, problems: [...validated.problems, ...early], sources };
   const config = deepFreeze(validated.value);
-  const expanded = expandSweep(varied.source, config, overridden.overridden);
-  if (!expanded.ok) return { ok: false, problems: expanded.problems, sources };
+  const expanded = expandSweep(varied.source, config, origins);
+  if (!expanded.ok) return { ok: false, problems: [...expanded.problems, ...early], sources };
+  if (early.length > 0) return { ok: false, problems: early, sources };
   const fileProblems = checkDataFiles([config, ...expanded.points.map((p) => p.config)], baseDir);
   if (fileProblems.length > 0) return { ok: false, problems: fileProblems, sources };
   const points = expanded.points.map((p) => ({ ...p, config: deepFreeze(p.config) }));

@@ -8,10 +8,11 @@
  */
 import { isAlias, isMap, isScalar, isSeq, parseDocument } from 'yaml';
 import type { Problem } from './problems.js';
+import type { EditOrigin, Edits } from './validate.js';
 import { dottedPath, type YamlSource } from './yaml-source.js';
 
 export type OverrideResult =
-  | { ok: true; source: YamlSource; overridden: ReadonlyMap<string, string> }
+  | { ok: true; source: YamlSource; overridden: Edits }
   | { ok: false; problems: Problem[] };
 
 const EXPECTED = 'an item `path.to.key=value`, e.g. `groups.meters.count=20000`';
@@ -88,11 +89,11 @@ function setOne(doc: YamlSource['doc'], parsed: ParsedItem): string | undefined 
 /**
  * Applies `--set` items in order (later items win) to a copy of the document. Malformed items
  * give Problems (code `bad-override`, file `--set`, all items checked). `overridden` maps each
- * dotted path set to the item text, so validation can report problems there as `--set`.
+ * dotted path set to its item, so validation can report problems there as `--set`.
  */
 export function applyOverrides(source: YamlSource, items: readonly string[]): OverrideResult {
   const doc = source.doc.clone() as YamlSource['doc'];
-  const overridden = new Map<string, string>();
+  const overridden = new Map<string, EditOrigin>();
   const problems: Problem[] = [];
   for (const item of items) {
     const parsed = parseItem(item);
@@ -103,7 +104,7 @@ export function applyOverrides(source: YamlSource, items: readonly string[]): Ov
     }
     const failure = setOne(doc, parsed);
     if (failure !== undefined) problems.push(bad(item, parsed.segments.join('.'), failure));
-    else overridden.set(parsed.segments.join('.'), item);
+    else overridden.set(parsed.segments.join('.'), { option: '--set', item });
   }
   if (problems.length > 0) return { ok: false, problems };
   return { ok: true, source: { ...source, doc }, overridden };

@@ -58,7 +58,7 @@ export class ConfigError extends Error {
 }
 
 /** Orders problems by file position: line, then column; problems without a line come last, in their original order. */
-export function compareProblems(a: Problem, b: Problem): number {
+function compareProblems(a: Problem, b: Problem): number {
   const la = a.line ?? Number.POSITIVE_INFINITY;
   const lb = b.line ?? Number.POSITIVE_INFINITY;
   if (la !== lb) return la < lb ? -1 : 1;

@@ -3,8 +3,8 @@
  * as "10ms" or "500m" (or the number 0 where zero is allowed), output a plain number in the base unit.
  * Bounds (base unit, inclusive) and `positive` are checked after parsing. Issues are `custom` with
  * {@link QuantityIssueParams}; a value that is neither string nor number fails the input union. The
- * input JSON Schema is `anyOf: [string with pattern, const 0]` (only the string when 0 is not allowed)
- * with a description.
+ * input JSON Schema is `anyOf: [string with pattern, const 0]` (a number branch matching nothing when 0
+ * is not allowed) with a description.
  */
 import { z } from 'zod';
 
@@ -42,7 +42,7 @@ export interface QuantityKind {
   readonly stages: WeakSet<object>;
 }
 
-export function boundsText(kind: QuantityKind, o: QuantityOptions): string {
+function boundsText(kind: QuantityKind, o: QuantityOptions): string {
   const parts: string[] = [];
   if (o.positive === true) parts.push('greater than 0');
   if (o.min !== undefined) parts.push(`at least ${kind.format(o.min)}`);
@@ -59,7 +59,8 @@ function outOfRange(kind: QuantityKind, value: number, o: QuantityOptions): stri
 function describe(kind: QuantityKind, o: QuantityOptions): string {
   const range = boundsText(kind, o);
   const noun = kind.noun.charAt(0).toUpperCase() + kind.noun.slice(1);
-  const what = `${noun}: a number with a unit (${kind.units}), e.g. ${kind.examples}, or 0${range === '' ? '' : `; ${range}`}.`;
+  const zero = o.positive !== true && (o.min === undefined || o.min <= 0) ? ', or 0' : '';
+  const what = `${noun}: a number with a unit (${kind.units}), e.g. ${kind.examples}${zero}${range === '' ? '' : `; ${range}`}.`;
   return o.description === undefined ? what : `${o.description.trim()} ${what}`;
 }
 
@@ -74,8 +75,11 @@ export function quantitySchema(kind: QuantityKind, options: QuantityOptions) {
     throw new RangeError(`${kind.noun}(): min ${options.min} > max ${options.max}`);
   }
   const zeroAllowed = options.positive !== true && (options.min === undefined || options.min <= 0);
+  // Numbers are let through to the parser even where 0 is not allowed, so that `radius: 500` is told
+  // to write a unit (and `0` that it must be greater than 0) rather than that it has the wrong type.
+  // For editors the number branch then matches nothing (JSON Schema `not: {}`).
   const input = z.union(
-    zeroAllowed ? [z.string().meta({ pattern: kind.pattern }), z.number().meta({ const: 0 })] : [z.string().meta({ pattern: kind.positivePattern })],
+    zeroAllowed ? [z.string().meta({ pattern: kind.pattern }), z.number().meta({ const: 0 })] : [z.string().meta({ pattern: kind.positivePattern }), z.number().meta({ not: {} })],
     { error: () => `expected a ${kind.noun}: a number with a unit (${kind.units})` },
   );
   const schema = input
@@ -85,7 +89,7 @@ export function quantitySchema(kind: QuantityKind, options: QuantityOptions) {
       if (r.ok && reason === undefined) return r.value;
       const params: QuantityIssueParams = r.ok
         ? { problem: 'invalid-value', expected: `a ${kind.noun} ${boundsText(kind, options)}` }
-        : { problem: 'bad-unit', expected: kind.expected };
+        : { problem: 'bad-unit', expected: zeroAllowed ? kind.expected : kind.expected.replace(/; or 0$/, '') };
       ctx.issues.push({ code: 'custom', message: reason ?? `invalid ${kind.noun}`, input: value, params: { ...params } });
       return z.NEVER;
     })

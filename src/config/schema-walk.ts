@@ -56,7 +56,7 @@ export function unwrapChain(s: Schema): Schema[] {
 }
 
 /** The core (unwrapped) type of `s`. */
-export function coreOf(s: Schema): Schema {
+function coreOf(s: Schema): Schema {
   const chain = unwrapChain(s);
   return chain[chain.length - 1] ?? s;
 }
@@ -72,7 +72,7 @@ export function valuesOf(s: Schema): readonly unknown[] | undefined {
 }
 
 /** Union branches that fit `data`: for a discriminated union, the branch named by the data. */
-export function unionBranches(s: Schema, data: unknown): readonly Schema[] {
+function unionBranches(s: Schema, data: unknown): readonly Schema[] {
   const def = defOf(s);
   const options = def.options ?? [];
   const disc = def.discriminator;

@@ -19,13 +19,24 @@ function startsWith(path: readonly (string | number)[], prefix: readonly string[
 }
 
 /**
- * The `--set` item responsible for a problem at `path`: one that set the path or an ancestor, or
- * one that created the (position-less) map the path runs into. Longest match, later item on ties.
+ * Where a value that did not come from the file as written was put there: a `--set` or `--vary` item
+ * of the command line, or a position in the file (the sweep value written into a point).
  */
-function overrideFor(source: YamlSource, path: readonly (string | number)[], overridden: ReadonlyMap<string, string>): string | undefined {
+export type EditOrigin =
+  | { readonly option: '--set' | '--vary'; readonly item: string }
+  | { readonly line: number; readonly column: number };
+
+/** Key paths (dotted) edited before validation, with their origin. */
+export type Edits = ReadonlyMap<string, EditOrigin>;
+
+/**
+ * The edit responsible for a problem at `path`: one that set the path or an ancestor, or one that
+ * created the (position-less) map the path runs into. Longest match, later edit on ties.
+ */
+function overrideFor(source: YamlSource, path: readonly (string | number)[], overridden: Edits): EditOrigin | undefined {
   if (overridden.size === 0) return undefined;
   const located = locatePath(source, path);
-  let best: string | undefined;
+  let best: EditOrigin | undefined;
   let bestLength = -1;
   for (const [key, item] of overridden) {
     const segs = key.split('.');
@@ -40,20 +51,25 @@ function overrideFor(source: YamlSource, path: readonly (string | number)[], ove
   return best;
 }
 
-function place(d: Draft, source: YamlSource, overridden: ReadonlyMap<string, string>): Problem {
+function place(d: Draft, source: YamlSource, overridden: Edits): Problem {
   const { preferKey, path, ...fields } = d;
-  const item = overrideFor(source, path, overridden);
-  if (item !== undefined) {
-    return { ...fields, file: '--set', line: null, column: null, path: dottedPath(path), found: item };
+  const origin = overrideFor(source, path, overridden);
+  if (origin !== undefined && 'option' in origin) {
+    return { ...fields, file: origin.option, line: null, column: null, path: dottedPath(path), found: origin.item };
+  }
+  // A value written into a point by the file's sweep: no position of its own, report it at the value.
+  if (origin !== undefined && locatePath(source, path).created) {
+    return { ...fields, file: source.file, line: origin.line, column: origin.column, path: dottedPath(path) };
   }
   const pos = positionOf(source, path, preferKey === true);
   return { ...fields, file: source.file, line: pos?.line ?? null, column: pos?.column ?? null, path: dottedPath(path) };
 }
 
-/** `--set` problems (sorted last, no line) in the order the items were given. */
-function bySetOrder(problems: Problem[], overridden: ReadonlyMap<string, string>): Problem[] {
-  const order = new Map([...overridden.values()].map((item, i) => [item, i]));
-  const rank = (p: Problem) => (p.file === '--set' ? (order.get(p.found ?? '') ?? order.size) : -1);
+/** Command-line problems (sorted last, no line) in the order the items were given. */
+function bySetOrder(problems: Problem[], overridden: Edits): Problem[] {
+  const items = [...overridden.values()].flatMap((o) => ('option' in o ? [o.item] : []));
+  const order = new Map(items.map((item, i) => [item, i]));
+  const rank = (p: Problem) => (p.file === '--set' || p.file === '--vary' ? (order.get(p.found ?? '') ?? order.size) : -1);
   return problems.map((p, i) => ({ p, i })).sort((a, b) => rank(a.p) - rank(b.p) || a.i - b.i).map((x) => x.p);
 }
 
@@ -75,7 +91,7 @@ function dedupe(problems: readonly Problem[]): Problem[] {
 export function validateSource<S extends z.ZodType>(
   source: YamlSource,
   schema: S,
-  overridden: ReadonlyMap<string, string> = new Map(),
+  overridden: Edits = new Map(),
 ): ValidateResult<z.output<S>> {
   let data: unknown;
   try {

@@ -9,6 +9,7 @@
  */
 import { isMap, isSeq, parseDocument, YAMLMap, YAMLSeq } from 'yaml';
 import type { Problem } from './problems.js';
+import type { EditOrigin, Edits } from './validate.js';
 import type { YamlSource } from './yaml-source.js';
 
 const EXPECTED = 'path=v1,v2,…  or  path=[v1, v2]  or  path=FROM..TO/COUNT[/log]  or  path=FROM..TO+STEP';
@@ -51,11 +52,15 @@ function parseAxis(item: string): Axis | string {
   return { path, values };
 }
 
-export type VaryResult = { ok: true; source: YamlSource } | { ok: false; problems: Problem[] };
+/**
+ * `edits` maps each varied path, and the axis it became (`sweep.axes.i`), to its `--vary` item, so
+ * that problems with the values are reported against the item, not the file.
+ */
+export type VaryResult = { ok: true; source: YamlSource; edits: Edits } | { ok: false; problems: Problem[] };
 
 /** Applies --vary items (and --combine) to a copy of the document's sweep section. */
 export function applyVary(source: YamlSource, items: readonly string[], combine?: 'grid' | 'zip'): VaryResult {
-  if (items.length === 0 && combine === undefined) return { ok: true, source };
+  if (items.length === 0 && combine === undefined) return { ok: true, source, edits: new Map() };
   const problems: Problem[] = [];
   const axes: Axis[] = [];
   for (const item of items) {
@@ -81,11 +86,15 @@ export function applyVary(source: YamlSource, items: readonly string[], combine?
     seq = new YAMLSeq();
     sweepMap.set('axes', seq);
   }
-  for (const axis of axes) {
+  const edits = new Map<string, EditOrigin>();
+  axes.forEach((axis, i) => {
     const node = doc.createNode(axis);
-    const at = seq.items.findIndex((n) => isMap(n) && n.get('path') === axis.path);
+    let at = seq.items.findIndex((n) => isMap(n) && n.get('path') === axis.path);
     if (at >= 0) seq.items[at] = node;
-    else seq.items.push(node);
-  }
-  return { ok: true, source: { ...source, doc } };
+    else at = seq.items.push(node) - 1;
+    const origin: EditOrigin = { option: '--vary', item: items[i] as string };
+    edits.set(axis.path, origin);
+    edits.set(`sweep.axes.${at}`, origin);
+  });
+  return { ok: true, source: { ...source, doc }, edits };
 }

@@ -45,7 +45,7 @@ interface PointState {
   inFlight: number;
 }
 
-export function taskInShard(shard: Shard | null, rule: ReplicationRule, point: number, replication: number, replicationsPerPoint: number): boolean {
+function taskInShard(shard: Shard | null, rule: ReplicationRule, point: number, replication: number, replicationsPerPoint: number): boolean {
   if (shard === null) return true;
   const index = rule.kind === 'fixed' ? point * replicationsPerPoint + replication : point;
   return index % shard.count === shard.index - 1;

@@ -16,7 +16,7 @@ export interface TaskRunner {
 }
 
 /** Runs each task in this thread, yielding to the event loop first so that signals are handled. */
-export class InlineRunner implements TaskRunner {
+class InlineRunner implements TaskRunner {
   constructor(
     private readonly points: readonly PointSpec[],
     private readonly baseDir: string,
@@ -51,7 +51,7 @@ interface Pending {
 }
 
 /** A fixed pool of worker threads; tasks go to the first idle worker. */
-export class ThreadPool implements TaskRunner {
+class ThreadPool implements TaskRunner {
   private readonly workers: Worker[] = [];
   private readonly idle: Worker[] = [];
   private readonly queue: Array<{ message: ToWorker; pending: Pending }> = [];
@@ -66,7 +66,8 @@ export class ThreadPool implements TaskRunner {
       const worker = new Worker(script);
       worker.postMessage({ kind: 'init', points, baseDir } satisfies ToWorker);
       worker.on('message', (message: FromWorker) => this.answered(worker, message));
-      worker.on('error', (error) => this.crashed(worker, error));
+      worker.on('error', (error) => this.lost(worker, error));
+      worker.on('exit', (code) => this.lost(worker, new Error(`a worker thread stopped unexpectedly (exit code ${code})`)));
       this.workers.push(worker);
       this.idle.push(worker);
     }
@@ -104,9 +105,22 @@ export class ThreadPool implements TaskRunner {
     this.dispatch();
   }
 
-  private crashed(worker: Worker, error: Error): void {
+  /**
+   * A worker died (an uncaught error, out of memory, or it exited): its task fails with the error and
+   * the worker leaves the pool; when no worker is left, every queued task fails too (none would run).
+   */
+  private lost(worker: Worker, error: Error): void {
+    if (this.closed || !this.workers.includes(worker)) return;
+    this.workers.splice(this.workers.indexOf(worker), 1);
+    const at = this.idle.indexOf(worker);
+    if (at >= 0) this.idle.splice(at, 1);
     const id = this.busy.get(worker);
-    if (id !== undefined) this.pending.get(id)?.reject(error);
+    this.busy.delete(worker);
+    if (id !== undefined) {
+      this.pending.get(id)?.reject(error);
+      this.pending.delete(id);
+    }
+    if (this.workers.length === 0) for (const { pending } of this.queue.splice(0)) pending.reject(error);
   }
 
   async close(): Promise<void> {

@@ -41,7 +41,7 @@ export function runExperiment(config: ExperimentConfig, options: RunOptions = {}
   return { config, rule, points };
 }
 
-export function runPoint(spec: PointSpec, rule: ReplicationRule, options: RunOptions = {}): PointResult {
+function runPoint(spec: PointSpec, rule: ReplicationRule, options: RunOptions = {}): PointResult {
   const level = spec.config.confidence_level;
   const records: ReplicationRecord[] = [];
   const next = (): void => {

@@ -16,11 +16,11 @@ async function expectUsageError(args: readonly string[]): Promise<string> {
 }
 
 describe.concurrent('jostle --help and --version', () => {
-  it('--help exits 0 and lists the four commands', async () => {
+  it('--help exits 0 and lists the seven commands', async () => {
     // common practice: --help prints usage on stdout and succeeds
     const r = await runCliAsync(['--help']);
     expect(r.status).toBe(0);
-    for (const command of ['run <file>', 'validate <file>', 'schema', 'check']) expect(r.stdout).toContain(command);
+    for (const command of ['run <file>', 'merge <folders..>', 'plot <folder>', 'validate <file>', 'schema', 'check', 'cluster']) expect(r.stdout).toContain(`jostle ${command}`);
     expect(r.stderr).toBe('');
   });
 

@@ -28,7 +28,12 @@ function spec(dir: string, overrides: Partial<SlurmJobSpec> = {}): SlurmJobSpec 
     jostle: writeArgvEcho(dir),
     experimentFile: '/data/exp one.yaml',
     outDir: join(dir, 'out dir'),
-    sets: ['groups.mtc.count=2000', TRICKY],
+    runArgs: [
+      ['--set', 'groups.mtc.count=2000'],
+      ['--set', TRICKY],
+      ['--vary', 'cell.random_access.preambles=[10, 20]'],
+      ['--seed', '007'],
+    ],
     resources: { extra: [] },
     ...overrides,
   };
@@ -80,7 +85,7 @@ describe('generated Slurm scripts', () => {
     expect(text.merge.split('\n').filter((l) => l.startsWith('#SBATCH'))).not.toContain('#SBATCH --cpus-per-task=4');
   });
 
-  it('bash runs task i as `run FILE --shard i/N --out OUT/shards/i`, with --set values intact', () => {
+  it('bash runs task i as `run FILE --shard i/N --out OUT/shards/i`, with --set, --vary and --seed values intact', () => {
     // exact: single-quoted words reach the program byte for byte (POSIX 2.2.2)
     const dir = makeTempDir();
     const s = spec(dir);
@@ -89,7 +94,7 @@ describe('generated Slurm scripts', () => {
     expect(r.stderr).toBe('');
     expect(JSON.parse(r.stdout)).toEqual([
       'run', '/data/exp one.yaml', '--shard', '2/3', '--out', join(s.outDir, 'shards', '2'), '--workers', '1', '--quiet',
-      '--set', 'groups.mtc.count=2000', '--set', TRICKY,
+      '--set', 'groups.mtc.count=2000', '--set', TRICKY, '--vary', 'cell.random_access.preambles=[10, 20]', '--seed', '007',
     ]);
     const withCpus = runBash(shards, [], { SLURM_ARRAY_TASK_ID: '3', SLURM_CPUS_PER_TASK: '4' });
     expect((JSON.parse(withCpus.stdout) as string[]).slice(2, 8)).toEqual(['--shard', '3/3', '--out', join(s.outDir, 'shards', '3'), '--workers', '4']);

@@ -3,7 +3,7 @@
 // `5ms` a string — yaml.org/spec/1.2.2, section 10.3, from memory). Lines/columns exact by hand.
 import { describe, expect, it } from 'vitest';
 import { applyOverrides } from '../../src/config/overrides.js';
-import { validateSource } from '../../src/config/validate.js';
+import { validateSource, type Edits } from '../../src/config/validate.js';
 import { parseYamlSource, type YamlSource } from '../../src/config/yaml-source.js';
 import { demoSchema } from './demo-schema.js';
 
@@ -18,7 +18,7 @@ function sourceOf(text = TEXT): YamlSource {
   return r.source;
 }
 
-function applied(items: string[], text = TEXT): { source: YamlSource; overridden: ReadonlyMap<string, string> } {
+function applied(items: string[], text = TEXT): { source: YamlSource; overridden: Edits } {
   const r = applyOverrides(sourceOf(text), items);
   if (!r.ok) throw new Error(JSON.stringify(r.problems));
   return r;
@@ -41,7 +41,7 @@ describe('applyOverrides', () => {
     expect(js['groups']).toMatchObject({ sensors: { count: 5 } });
     expect(js['empty']).toEqual({ inner: 1 });
     expect(js['brand']).toEqual({ new: { deep: 'x' } });
-    expect(overridden.get('groups.sensors.count')).toBe('groups.sensors.count=5');
+    expect(overridden.get('groups.sensors.count')).toEqual({ option: '--set', item: 'groups.sensors.count=5' });
   });
 
   it('creates the root map of an empty file, and refuses a file that is a single value', () => {
