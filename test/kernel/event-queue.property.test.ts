@@ -1,6 +1,6 @@
 /**
  * EventQueue property tests. Oracle: common practice (discrete-event simulation ordering rule:
- * SimPy-style (time, id) FIFO) — events leave by smallest time, equal times in push order; a
+ * future-event list ordered by (time, insertion number), FIFO on ties) — events leave by smallest time, equal times in push order; a
  * stable sort by time of the push list, or a linear-scan reference queue, gives that order.
  */
 import { describe, it, expect } from 'vitest';

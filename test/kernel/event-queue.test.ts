@@ -1,6 +1,6 @@
 /**
  * EventQueue unit tests. Oracle for every ordering check: common practice (discrete-event
- * simulation ordering rule: SimPy-style (time, id) FIFO): smallest time first, equal times in
+ * simulation ordering rule: future-event list ordered by (time, insertion number), FIFO on ties): smallest time first, equal times in
  * the order they were pushed.
  */
 import { describe, it, expect } from 'vitest';
@@ -27,7 +27,7 @@ describe('EventQueue basics', () => {
     expect(q.peekTime()).toBe(Infinity);
   });
 
-  it('returns a whole trace in (time, push order) — common practice (SimPy-style (time, id) FIFO)', () => {
+  it('returns a whole trace in (time, push order) — common practice (future-event list ordered by (time, insertion number), FIFO on ties)', () => {
     const q = new EventQueue({ wheelSpan: 8 });
     q.push(5, 0, 1);
     q.push(2.5, 1, 2);
@@ -55,7 +55,7 @@ describe('EventQueue basics', () => {
     ]);
   });
 
-  it('runs same-time events FIFO when the earlier ones sit in the heap and later ones in the wheel — common practice (SimPy-style (time, id) FIFO)', () => {
+  it('runs same-time events FIFO when the earlier ones sit in the heap and later ones in the wheel — common practice (future-event list ordered by (time, insertion number), FIFO on ties)', () => {
     const q = new EventQueue({ wheelSpan: 4 });
     q.push(10, 0, 1); // 10 is outside [0, 4): heap
     q.push(10, 0, 2); // heap
@@ -73,7 +73,7 @@ describe('EventQueue basics', () => {
     ]);
   });
 
-  it('takes a push below a time already found by peekTime() — common practice (SimPy-style (time, id) FIFO)', () => {
+  it('takes a push below a time already found by peekTime() — common practice (future-event list ordered by (time, insertion number), FIFO on ties)', () => {
     const q = new EventQueue({ wheelSpan: 16 });
     q.push(10, 0, 1);
     expect(q.peekTime()).toBe(10);
@@ -82,7 +82,7 @@ describe('EventQueue basics', () => {
     expect(drain(q).map((e) => e.time)).toEqual([7, 10]);
   });
 
-  it('orders whole-number times above 2^31 and 2^32 correctly (where `t | 0` would wrap) — common practice (SimPy-style (time, id) FIFO)', () => {
+  it('orders whole-number times above 2^31 and 2^32 correctly (where `t | 0` would wrap) — common practice (future-event list ordered by (time, insertion number), FIFO on ties)', () => {
     const q = new EventQueue({ wheelSpan: 16 });
     const b = 2 ** 32 + 3;
     q.push(b, 0, 0);
@@ -124,7 +124,7 @@ describe('EventQueue basics', () => {
 });
 
 describe('EventQueue wheel wrap-around and clear()', () => {
-  it('matches the (time, seq) oracle over 400 wheel spans of a hold model — common practice (SimPy-style (time, id) FIFO)', () => {
+  it('matches the (time, seq) oracle over 400 wheel spans of a hold model — common practice (future-event list ordered by (time, insertion number), FIFO on ties)', () => {
     const span = 8;
     const q = new EventQueue({ wheelSpan: span, initialCapacity: 2 });
     const ref = new ReferenceQueue();

@@ -1,7 +1,7 @@
 /**
- * Test oracle: the discrete-event ordering rule written as plainly as possible (common practice,
- * SimPy-style): the next event is the one with the smallest (time, scheduling number); equal
- * times leave first in, first out. Linear scans, no cleverness.
+ * Test oracle: the discrete-event ordering rule written as plainly as possible (common practice: a
+ * future-event list ordered by (time, insertion number)): the next event is the one with the smallest
+ * (time, scheduling number); equal times leave first in, first out. Linear scans, no cleverness.
  */
 export interface RefEvent {
   readonly time: number;

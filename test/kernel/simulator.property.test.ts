@@ -1,6 +1,6 @@
 /**
  * Simulator property tests. Oracle: common practice (discrete-event simulation ordering rule:
- * SimPy-style (time, id) FIFO): time never decreases, equal times run in scheduling order, and
+ * future-event list ordered by (time, insertion number), FIFO on ties): time never decreases, equal times run in scheduling order, and
  * every scheduled event runs exactly once.
  */
 import { describe, it, expect } from 'vitest';

@@ -1,6 +1,6 @@
 /**
  * Simulator unit tests. Ordering oracle: common practice (discrete-event simulation ordering
- * rule: SimPy-style (time, id) FIFO). The run/stop/limit semantics checked here are the
+ * rule: future-event list ordered by (time, insertion number), FIFO on ties). The run/stop/limit semantics checked here are the
  * kernel's documented contract (simulator.ts), asserted as whole traces.
  */
 import { describe, it, expect } from 'vitest';
@@ -34,7 +34,7 @@ describe('Simulator definitions', () => {
 });
 
 describe('Simulator ordering', () => {
-  it('runs a whole trace by (time, scheduling order), with now = event time — common practice (SimPy-style (time, id) FIFO)', () => {
+  it('runs a whole trace by (time, scheduling order), with now = event time — common practice (future-event list ordered by (time, insertion number), FIFO on ties)', () => {
     const { sim, log, a, b } = logged();
     sim.at(3, b, 1);
     sim.at(1.5, a, 2);
@@ -49,7 +49,7 @@ describe('Simulator ordering', () => {
     ]);
   });
 
-  it('puts a zero-delay event behind events already scheduled for now — common practice (SimPy-style (time, id) FIFO)', () => {
+  it('puts a zero-delay event behind events already scheduled for now — common practice (future-event list ordered by (time, insertion number), FIFO on ties)', () => {
     const sim = new Simulator();
     const log: number[] = [];
     const later = sim.defineEvent('later', (s) => log.push(s));

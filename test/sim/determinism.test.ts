@@ -1,7 +1,7 @@
 /**
  * Reproducibility: the same config and seed give a byte-identical summary; another seed gives another
  * one; a replication re-run alone from its seed gives the same record (common practice: seeded
- * replications, numpy SeedSequence-style hashed substreams).
+ * replications with independent substreams derived by hashing the root seed and a stream name).
  */
 import { describe, expect, it } from 'vitest';
 import { renderConfig } from '../../src/config/load.js';

@@ -44,6 +44,8 @@ describe('TR 37.868 reference scenarios (bands from memory)', () => {
       'access_success_probability',
     );
     expect(answered.mean + answered.half_width).toBeLessThan(unanswered.mean - unanswered.half_width);
+    // Stated tolerance, not a published value: at this load most responses go to collided
+    // preambles, so the drop must be large — at least a fifth of the success probability.
     expect(answered.mean).toBeLessThan(0.8 * unanswered.mean);
   });
 
