@@ -72,25 +72,18 @@ function axisValues(source: YamlSource, sweep: SweepSpec, a: number): AxisValues
 
 /**
  * Edits of one point: the command-line ones, plus each file axis's path with the position of the
- * value written there — a path whose parents are not in the file has no position of its own.
+ * value written there — a path whose parents are not in the file has no position of its own. (A
+ * range value has no node of its own: it is reported at its axis.)
  */
 function pointEdits(source: YamlSource, axes: readonly AxisValues[], tuple: readonly number[], edits: Edits): Edits {
   const out = new Map<string, EditOrigin>();
   tuple.forEach((v, a) => {
-    const axis = axes[a]!;
-    const at = positionOfNode(source, axis.nodes[v]!);
-    if (at !== null && !edits.has(axis.path)) out.set(axis.path, at);
+    const path = axes[a]!.path;
+    const at = positionOf(source, ['sweep', 'axes', a, 'values', v]);
+    if (at !== null && !edits.has(path)) out.set(path, at);
   });
   for (const [k, o] of edits) out.set(k, o);
   return out;
-}
-
-/** 1-based position of a node that came from the file, or null for a created one. */
-function positionOfNode(source: YamlSource, node: Node): { line: number; column: number } | null {
-  const start = node.range?.[0];
-  if (start === undefined) return null;
-  const { line, col } = source.lines.linePos(start);
-  return { line, column: col };
 }
 
 /** Index tuples of the points, first axis slowest. */

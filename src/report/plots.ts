@@ -191,21 +191,21 @@ function againstTwoAxes(doc: SummaryDoc, x: Axis, by: Axis, metric: string, grou
   };
 }
 
-/** Metric per point label (categorical sweeps): points with error bars, cell and groups. */
-function perCategory(doc: SummaryDoc, axis: Axis | null, metric: string): Figure | null {
-  // Without a single axis the categories are the points themselves (by index: labels may repeat).
-  const categories = axis === null ? doc.points.map((p) => p.label) : axis.categories;
-  const chosen: (PointDoc | undefined)[] = axis === null ? [...doc.points] : categories.map((c) => doc.points.find((p) => axis.category(p) === c));
-  const pick = (_c: string, i: number): PointDoc | undefined => chosen[i];
+/**
+ * Metric per point (categorical sweeps): points with error bars, cell and groups. The categories are
+ * the points themselves, in order, named by their labels (taken by index, never looked up by label).
+ */
+function perPoint(doc: SummaryDoc, metric: string): Figure | null {
+  const categories = doc.points.map((p) => p.label);
   const groupNames = Object.keys(doc.points[0]?.groups ?? {});
   const value = (s: Stat | undefined): { y: number; low?: number; high?: number } | null => {
     const p = point(s, 0, isShare(metric));
     return p === null ? null : p.low === undefined || p.high === undefined ? { y: p.y } : { y: p.y, low: p.low, high: p.high };
   };
-  const series = [{ name: 'cell', values: categories.map((c, i) => value(pick(c, i)?.metrics[metric])) }];
-  if (groupNames.length > 1) for (const g of groupNames) series.push({ name: g, values: categories.map((c, i) => value(pick(c, i)?.groups[g]?.metrics[metric])) });
+  const series = [{ name: 'cell', values: doc.points.map((p) => value(p.metrics[metric])) }];
+  if (groupNames.length > 1) for (const g of groupNames) series.push({ name: g, values: doc.points.map((p) => value(p.groups[g]?.metrics[metric])) });
   if (series.every((s) => s.values.every((v) => v === null))) return null;
-  const title = `${metric} by ${axis?.path ?? 'point'}`;
+  const title = `${metric} by point`;
   return {
     file: `${metric}.svg`,
     title,
@@ -291,11 +291,11 @@ export function figuresOf(doc: SummaryDoc, metrics?: readonly string[]): Figure[
     if (zipped || axes.length === 1) {
       // A numeric axis can carry the x of a line only if no two points share its value.
       const numeric = axes.find((a) => a.numeric && new Set(doc.points.map(a.value)).size === doc.points.length);
-      f = numeric !== undefined ? againstAxis(doc, numeric, metric) : perCategory(doc, null, metric);
+      f = numeric !== undefined ? againstAxis(doc, numeric, metric) : perPoint(doc, metric);
     } else if (axes.length === 2 && a1 !== undefined) {
       const x = a0.numeric ? a0 : a1.numeric ? a1 : null;
       const by = x === a0 ? a1 : a0;
-      f = x === null ? perCategory(doc, null, metric) : againstTwoAxes(doc, x, by, metric);
+      f = x === null ? perPoint(doc, metric) : againstTwoAxes(doc, x, by, metric);
       if (x !== null) {
         for (const g of doc.config.report?.compare_groups ?? []) {
           const gf = againstTwoAxes(doc, x, by, metric, g);
@@ -307,7 +307,7 @@ export function figuresOf(doc: SummaryDoc, metrics?: readonly string[]): Figure[
         if (h !== null) figures.push(h);
       }
     } else {
-      f = perCategory(doc, null, metric);
+      f = perPoint(doc, metric);
     }
     if (f !== null) figures.push(f);
   }

@@ -20,6 +20,7 @@ export class DynamicGrants implements GrantFrontEnd {
   private readonly outcomeKind: number;
   private readonly grantPeriod: number;
   private readonly observeDelay: number;
+  private readonly sim: Simulator;
 
   constructor(
     readonly access: GrantedAccess,
@@ -45,8 +46,6 @@ export class DynamicGrants implements GrantFrontEnd {
     this.outcomeKind = sim.defineEvent(`grants/${group}/outcomes`, (occasion, t) => this.observe(occasion, t));
     this.sim = sim;
   }
-
-  private readonly sim: Simulator;
 
   /** Grants up to `free` devices at occasion `s` for subframe `u`; returns the grants issued. */
   occasion(s: number, u: number, free: number): number {
